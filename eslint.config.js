@@ -1,0 +1,37 @@
+import js from '@eslint/js';
+import tseslint from 'typescript-eslint';
+import pluginVue from 'eslint-plugin-vue';
+import globals from 'globals';
+
+export default tseslint.config(
+  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'tests/.artifacts/**'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  ...pluginVue.configs['flat/recommended'],
+  {
+    files: ['**/*.vue'],
+    languageOptions: { parserOptions: { parser: tseslint.parser } },
+  },
+  {
+    languageOptions: { globals: { ...globals.node, ...globals.browser } },
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/consistent-type-imports': 'error',
+      'vue/multi-word-component-names': 'off',
+      'vue/max-attributes-per-line': 'off',
+      'vue/singleline-html-element-content-newline': 'off',
+      'vue/html-self-closing': 'off',
+    },
+  },
+  {
+    // shared/ is pure: no Node, DOM or framework imports.
+    files: ['shared/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', {
+        patterns: [
+          { group: ['node:*', 'fs', 'path', 'http', 'vue', 'vue-router', 'pinia', 'naive-ui', 'express', 'sequelize', 'pg', 'leaflet'], message: 'shared/ stays free of I/O and frameworks.' },
+        ],
+      }],
+    },
+  },
+);
