@@ -4,7 +4,7 @@ import pluginVue from 'eslint-plugin-vue';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'tests/.artifacts/**'] },
+  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'tests/output/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...pluginVue.configs['flat/recommended'],

@@ -39,7 +39,6 @@ export default defineConfig({
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/setup/database.ts'],
-          setupFiles: ['tests/setup/api-env.ts'],
           testTimeout: 30_000,
           hookTimeout: 60_000,
           fileParallelism: false,

@@ -1,0 +1,60 @@
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import express, { type Express } from 'express';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import type { Config } from './config';
+import { authenticate } from './middleware/auth';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { authRouter } from './routes/auth';
+import { usersRouter } from './routes/users';
+import { AuthService } from './services/auth-service';
+import { TokenService } from './services/token-service';
+import { UserService } from './services/user-service';
+
+export interface AppOptions {
+  config: Config;
+  /** The JWT signing key (from env, or kept under the data folder by the embedded start). */
+  jwtSecret: string;
+  /** Folder of the built client to serve; omitted in API tests. */
+  clientDir?: string;
+}
+
+/** Builds the Express app (no listen): API under /api, the built client for everything else. */
+export function createApp({ config, jwtSecret, clientDir }: AppOptions): Express {
+  const tokens = new TokenService(jwtSecret, config.jwtTtlHours);
+  const auth = new AuthService(config.bcryptRounds);
+  const users = new UserService();
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(helmet({
+    contentSecurityPolicy: {
+      directives: {
+        // Map tiles come from the configured tile server; everything else from this origin.
+        'img-src': ["'self'", 'data:', 'blob:', 'https:'],
+        'upgrade-insecure-requests': null,
+      },
+    },
+  }));
+
+  const api = express.Router();
+  api.use(express.json({ limit: '256kb' }));
+  api.use(cookieParser());
+  api.use(authenticate(tokens, users));
+  api.get('/health', (_req, res) => { res.json({ ok: true }); });
+  api.use('/auth', authRouter({ config, auth, tokens }));
+  api.use('/users', usersRouter({ users }));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  if (clientDir && existsSync(join(clientDir, 'index.html'))) {
+    const root = resolve(clientDir);
+    app.use(express.static(root, { index: false, maxAge: '1h' }));
+    // The client's router owns every other path.
+    app.get('/{*path}', (_req, res) => { res.sendFile(join(root, 'index.html')); });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,36 @@
+import jwt from 'jsonwebtoken';
+import type { Role } from '../../shared/schemas/auth';
+
+export interface SessionClaims {
+  sub: string;
+  role: Role;
+}
+
+/** Signs and checks the session tokens carried in the sign-in cookie. */
+export class TokenService {
+  constructor(
+    private readonly secret: string,
+    private readonly ttlHours: number,
+  ) {}
+
+  get ttlMs(): number {
+    return this.ttlHours * 3600_000;
+  }
+
+  sign(claims: SessionClaims): string {
+    return jwt.sign({ role: claims.role }, this.secret, { subject: claims.sub, expiresIn: `${this.ttlHours}h`, algorithm: 'HS256' });
+  }
+
+  /** The claims of a valid token, or undefined for a missing, forged or expired one. */
+  verify(token: string | undefined): SessionClaims | undefined {
+    if (!token) return undefined;
+    try {
+      const payload = jwt.verify(token, this.secret, { algorithms: ['HS256'] });
+      if (typeof payload === 'string' || !payload.sub) return undefined;
+      const role = payload.role === 'admin' ? 'admin' : 'member';
+      return { sub: payload.sub, role };
+    } catch {
+      return undefined;
+    }
+  }
+}

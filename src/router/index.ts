@@ -1,0 +1,40 @@
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
+import type { Role } from '../../shared/schemas/auth';
+import { useSessionStore } from '@/stores/session';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Signed-in users only. */
+    requiresAuth?: boolean;
+    /** Only this role (implies requiresAuth). */
+    role?: Role;
+    /** Pages for signed-out users (sign in, register): a signed-in user goes home. */
+    guestOnly?: boolean;
+    title?: string;
+  }
+}
+
+const routes: RouteRecordRaw[] = [
+  { path: '/', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { requiresAuth: true, title: 'Home' } },
+  { path: '/signin', name: 'signin', component: () => import('@/views/SignInView.vue'), meta: { guestOnly: true, title: 'Sign in' } },
+  { path: '/register', name: 'register', component: () => import('@/views/RegisterView.vue'), meta: { guestOnly: true, title: 'Create account' } },
+  { path: '/admin', name: 'admin', component: () => import('@/views/AdminView.vue'), meta: { requiresAuth: true, role: 'admin', title: 'Accounts' } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Not found' } },
+];
+
+export const router = createRouter({ history: createWebHistory(), routes });
+
+router.beforeEach(async (to) => {
+  const session = useSessionStore();
+  await session.load().catch(() => undefined);
+  if ((to.meta.requiresAuth || to.meta.role) && !session.isSignedIn) {
+    return { name: 'signin', query: to.fullPath !== '/' ? { next: to.fullPath } : {} };
+  }
+  if (to.meta.role && session.user?.role !== to.meta.role) return { name: 'home' };
+  if (to.meta.guestOnly && session.isSignedIn) return { name: 'home' };
+  return true;
+});
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Gnomon` : 'Gnomon';
+});

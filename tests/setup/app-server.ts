@@ -1,0 +1,38 @@
+/**
+ * Vitest global setup for the browser tests: checks chromium, builds the client, and serves the
+ * real app (API + built client) on 127.0.0.1 with the demo data, on the test database.
+ */
+import { mkdirSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { buildClient } from '../../server/client-build';
+import { loadConfig } from '../../server/config';
+import { startServer } from '../../server/index';
+import { seedDemo } from '../../server/seeders/demo';
+import { AuthService } from '../../server/services/auth-service';
+import { ensureChromium } from './chromium';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+    artifactsDir: string;
+  }
+}
+
+export default async function setup(project: TestProject) {
+  ensureChromium();
+  const root = resolve('.');
+  const artifactsDir = join(root, 'tests', 'output');
+  const clientDir = join(artifactsDir, 'client');
+  mkdirSync(join(artifactsDir, 'screenshots'), { recursive: true });
+  buildClient(root, clientDir, { quiet: true });
+
+  const databaseUrl = process.env.GNOMON_TEST_DATABASE_URL;
+  if (!databaseUrl) throw new Error('tests/setup/database.ts must run before app-server.ts');
+  const config = loadConfig({ NODE_ENV: 'test', PORT: '0', BCRYPT_ROUNDS: '4' });
+  const running = await startServer({ config, databaseUrl, jwtSecret: 'e2e-secret-long-enough-for-hs256-signing', clientDir });
+  await seedDemo(new AuthService(4));
+  project.provide('baseUrl', running.url);
+  project.provide('artifactsDir', artifactsDir);
+  return () => running.close();
+}
