@@ -24,6 +24,22 @@ export function assertInRange(name: string, value: number, min: number, max: num
 }
 
 /**
+ * Throws a RangeError unless `value` is a finite number with `0 < value <= max`.
+ *
+ * @param name - argument name with its unit, used in the message
+ * @param value - the value to check
+ * @param max - largest allowed value (inclusive)
+ * @returns the value, for chaining
+ */
+export function assertPositiveUpTo(name: string, value: number, max: number): number {
+  assertInRange(name, value, 0, max);
+  if (value === 0) {
+    throw new RangeError(`${name} must be above 0 and at most ${max}, got 0`);
+  }
+  return value;
+}
+
+/**
  * Parses `value` with a zod schema and throws a RangeError listing the problems when it does
  * not fit (NaN, out-of-range latitude, missing field ...). Defaults in the schema are applied.
  *
