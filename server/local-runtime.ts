@@ -1,0 +1,65 @@
+/**
+ * The local runtime behind `npm start` and `npm run dev`: PostgreSQL from Debian's packages on
+ * loopback (unless DATABASE_URL is set), migrations, demo data, and the app server.
+ */
+import { join, resolve } from 'node:path';
+import type { Config } from './config';
+import { EmbeddedPostgres } from './db/embedded-postgres';
+import { buildClient, isClientBuildStale } from './client-build';
+import { installProcessHandlers, startServer, type RunningServer } from './index';
+import { loadOrCreateJwtSecret } from './secrets';
+import { seedDemo, demoAccounts, DEMO_PASSWORD } from './seeders/demo';
+import { AuthService } from './services/auth-service';
+
+export interface LocalRuntime {
+  running: RunningServer;
+  shutdown(): Promise<void>;
+}
+
+/** Starts database and app; `serveClient` builds the client when stale and serves it. */
+export async function startLocal(config: Config, options: { serveClient: boolean; onShutdown?: () => void }): Promise<LocalRuntime> {
+  const root = resolve('.');
+  const dataDir = resolve(config.dataDir);
+  let embedded: EmbeddedPostgres | undefined;
+  let databaseUrl = config.databaseUrl;
+  if (!databaseUrl) {
+    embedded = new EmbeddedPostgres({ dataDir: join(dataDir, 'pg'), socketDir: join(dataDir, 'pg-run'), port: config.embeddedPgPort });
+    await embedded.start();
+    await embedded.ensureDatabase('gnomon');
+    databaseUrl = embedded.url('gnomon');
+    console.log(`PostgreSQL on 127.0.0.1:${config.embeddedPgPort} (data in ${join(dataDir, 'pg')})`);
+  }
+  const jwtSecret = config.jwtSecret ?? loadOrCreateJwtSecret(dataDir);
+
+  let clientDir: string | undefined;
+  if (options.serveClient) {
+    clientDir = join(root, 'dist');
+    if (isClientBuildStale(root, clientDir)) {
+      console.log('Building the client...');
+      buildClient(root, clientDir);
+    }
+  }
+
+  let running: RunningServer | undefined;
+  const shutdown = async () => {
+    options.onShutdown?.();
+    await running?.close();
+    await embedded?.stop();
+  };
+  installProcessHandlers(shutdown);
+  try {
+    running = await startServer({ config, databaseUrl, jwtSecret, clientDir });
+    const created = await seedDemo(new AuthService(config.bcryptRounds));
+    if (created) console.log(`Demo data: ${created} account(s) created`);
+  } catch (error) {
+    await shutdown().catch(() => undefined);
+    throw error;
+  }
+  return { running, shutdown };
+}
+
+/** The demo sign-ins, printed after start. */
+export function printDemoSignIns(): void {
+  console.log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
+  for (const a of demoAccounts) console.log(`  ${a.email.padEnd(28)} ${a.role.padEnd(7)} (${a.name})`);
+}
