@@ -1,0 +1,171 @@
+/**
+ * Fast topocentric Sun and Moon quantities for one site, from the ephemeris tables.
+ *
+ * Definitions (the brute-force oracle in tests/unit/lineup uses the same ones through
+ * astronomy-engine's `Equator(body, t, observer, true, true)` and `Horizon(..., no refraction)`):
+ * - altitudes are geometric (airless), topocentric, of the body's centre, measured from the plane
+ *   perpendicular to the geodetic vertical; the observer's geocentric position is astronomy-engine's
+ *   (its flattening and equatorial radius), so the Moon's parallax (about 1 deg) is exact;
+ * - the Moon is down when its upper limb, lifted by the standard horizontal refraction of 34 arcmin,
+ *   is below the astronomical horizon: centre altitude + asin(R_moon / topocentric distance)
+ *   + 34/60 deg < 0, with R_moon = 1738.1 km (astronomy-engine's constants; at sea level this is
+ *   exactly its moonrise/moonset definition);
+ * - the Moon's illuminated fraction is (1 + cos i) / 2 with i the Sun-Moon-Earth phase angle, as in
+ *   astronomy-engine's `Illumination(Body.Moon, t).phase_fraction`.
+ */
+import type { ObserverSite } from '../schemas/geometry';
+import { KM_PER_AU } from 'astronomy-engine';
+import { apparentSiderealRad, moonGeocentricOfDate, sunGeocentricAndSidereal, sunGeocentricOfDate } from './ephemeris';
+
+/** astronomy-engine's Earth equatorial radius, km. */
+export const EARTH_EQUATORIAL_RADIUS_KM = 6378.1366;
+/** astronomy-engine's Earth polar-to-equatorial axis ratio (1 - flattening). */
+export const EARTH_AXIS_RATIO = 0.996647180302104;
+/** Lunar equatorial radius used for the upper limb, km (astronomy-engine's value). */
+export const MOON_RADIUS_KM = 1738.1;
+/** Standard refraction at the horizon, degrees (34 arcmin, USNO / astronomy-engine). */
+export const HORIZON_REFRACTION_DEG = 34 / 60;
+
+const DEG = Math.PI / 180;
+const MOON_RADIUS_AU = MOON_RADIUS_KM / KM_PER_AU;
+const SIN_HORIZON_REFRACTION = Math.sin(HORIZON_REFRACTION_DEG * DEG);
+const COS_HORIZON_REFRACTION = Math.cos(HORIZON_REFRACTION_DEG * DEG);
+
+/**
+ * Checks an observer site: finite latitude -90..90, longitude -180..180, elevation -500..9000 m.
+ * @throws RangeError otherwise.
+ */
+export function checkSite(site: ObserverSite): void {
+  if (site === null || typeof site !== 'object') throw new RangeError('site must be an object');
+  const { lat, lon, elevationM } = site;
+  if (!Number.isFinite(lat) || lat < -90 || lat > 90) throw new RangeError('site.lat must be a finite number in -90..90');
+  if (!Number.isFinite(lon) || lon < -180 || lon > 180) throw new RangeError('site.lon must be a finite number in -180..180');
+  if (!Number.isFinite(elevationM) || elevationM < -500 || elevationM > 9000) {
+    throw new RangeError('site.elevationM must be a finite number in -500..9000 m');
+  }
+}
+
+/** Sun and Moon seen from one site; all times are UT days since J2000. */
+export class SiteSky {
+  /** Geodetic latitude, deg. */
+  readonly latDeg: number;
+  /** Geodetic latitude, rad. */
+  readonly latRad: number;
+  /** East longitude, rad. */
+  readonly lonRad: number;
+  readonly sinLat: number;
+  readonly cosLat: number;
+  /** Observer's distance from the Earth's axis, AU. */
+  private readonly obsAxialAu: number;
+  /** Observer's height above the equatorial plane, AU. */
+  private readonly obsPolarAu: number;
+  private readonly vec = new Float64Array(3);
+  private readonly sunVec = new Float64Array(3);
+
+  /** @param site - Latitude/longitude in degrees, elevation in metres above sea level. */
+  constructor(site: ObserverSite) {
+    checkSite(site);
+    this.latDeg = site.lat;
+    this.latRad = site.lat * DEG;
+    this.lonRad = site.lon * DEG;
+    this.sinLat = Math.sin(this.latRad);
+    this.cosLat = Math.cos(this.latRad);
+    const c = 1 / Math.hypot(this.cosLat, EARTH_AXIS_RATIO * this.sinLat);
+    const s = EARTH_AXIS_RATIO * EARTH_AXIS_RATIO * c;
+    const htKm = site.elevationM / 1000;
+    this.obsAxialAu = ((EARTH_EQUATORIAL_RADIUS_KM * c + htKm) * this.cosLat) / KM_PER_AU;
+    this.obsPolarAu = ((EARTH_EQUATORIAL_RADIUS_KM * s + htKm) * this.sinLat) / KM_PER_AU;
+  }
+
+  /** Local apparent sidereal angle, rad (any branch). @param ut - UT days since J2000. */
+  localSiderealRad(ut: number): number {
+    return apparentSiderealRad(ut) + this.lonRad;
+  }
+
+  /**
+   * Sine of the topocentric altitude of the geocentric vector in `this.vec`; leaves the topocentric
+   * distance (AU) in `lastDistanceAu`.
+   */
+  private sinAltitudeOfVec(theta: number): number {
+    const v = this.vec;
+    const c = Math.cos(theta);
+    const s = Math.sin(theta);
+    const meridian = v[0]! * c + v[1]! * s - this.obsAxialAu;
+    const perpendicular = -v[0]! * s + v[1]! * c;
+    const polar = v[2]! - this.obsPolarAu;
+    const dist = Math.sqrt(meridian * meridian + perpendicular * perpendicular + polar * polar);
+    this.lastDistanceAu = dist;
+    return (meridian * this.cosLat + polar * this.sinLat) / dist;
+  }
+
+  /** Topocentric distance of the last body evaluated, AU. */
+  lastDistanceAu = 0;
+
+  /** Sine of the Sun's geometric topocentric centre altitude, -1..1. @param ut - UT days since J2000. */
+  sunSinAltitude(ut: number): number {
+    const gast = sunGeocentricAndSidereal(ut, this.vec);
+    return this.sinAltitudeOfVec(gast + this.lonRad);
+  }
+
+  /** Sun's geometric topocentric centre altitude, deg. @param ut - UT days since J2000. */
+  sunAltitudeDeg(ut: number): number {
+    return Math.asin(this.sunSinAltitude(ut)) / DEG;
+  }
+
+  /** Sine of the Moon's geometric topocentric centre altitude. @param ut - UT days since J2000. */
+  moonSinAltitude(ut: number): number {
+    moonGeocentricOfDate(ut, this.vec);
+    return this.sinAltitudeOfVec(this.localSiderealRad(ut));
+  }
+
+  /** Moon's geometric topocentric centre altitude, deg. @param ut - UT days since J2000. */
+  moonAltitudeDeg(ut: number): number {
+    return Math.asin(this.moonSinAltitude(ut)) / DEG;
+  }
+
+  /**
+   * The Moon-down test in the sine domain: sin(centre altitude) + sin(semidiameter + 34 arcmin),
+   * negative exactly when the refracted upper limb is below the horizon (the sine is monotonic on
+   * -90..90 deg). The semidiameter is asin(R_moon / topocentric distance), so
+   * sin(SD + r) = (R/d) cos r + sqrt(1 - (R/d)^2) sin r, with no trigonometric call.
+   * @param ut - UT days since J2000.
+   */
+  moonLimbSin(ut: number): number {
+    const sinAlt = this.moonSinAltitude(ut);
+    const q = MOON_RADIUS_AU / this.lastDistanceAu;
+    return sinAlt + q * COS_HORIZON_REFRACTION + Math.sqrt(1 - q * q) * SIN_HORIZON_REFRACTION;
+  }
+
+  /** Refracted upper-limb altitude of the Moon, deg (negative: down). @param ut - UT days since J2000. */
+  moonUpperLimbDeg(ut: number): number {
+    const alt = this.moonAltitudeDeg(ut);
+    return alt + Math.asin(MOON_RADIUS_AU / this.lastDistanceAu) / DEG + HORIZON_REFRACTION_DEG;
+  }
+
+  /** Moon's illuminated fraction, 0..1 (geocentric). @param ut - UT days since J2000. */
+  moonIlluminatedFraction(ut: number): number {
+    const m = this.vec;
+    const s = this.sunVec;
+    moonGeocentricOfDate(ut, m);
+    sunGeocentricOfDate(ut, s);
+    // Phase angle between Earth->Moon and Sun->Moon (= Moon - Sun) vectors.
+    const hx = m[0]! - s[0]!;
+    const hy = m[1]! - s[1]!;
+    const hz = m[2]! - s[2]!;
+    const dot = m[0]! * hx + m[1]! * hy + m[2]! * hz;
+    const cosPhase = dot / (Math.hypot(m[0]!, m[1]!, m[2]!) * Math.hypot(hx, hy, hz));
+    return (1 + cosPhase) / 2;
+  }
+
+  /** Geocentric hour angle of the Sun, rad (unreduced). @param ut - UT days since J2000. */
+  sunHourAngleRad(ut: number): number {
+    sunGeocentricOfDate(ut, this.vec);
+    return this.localSiderealRad(ut) - Math.atan2(this.vec[1]!, this.vec[0]!);
+  }
+
+  /** Geocentric hour angle of the Moon, rad (unreduced). @param ut - UT days since J2000. */
+  moonHourAngleRad(ut: number): number {
+    moonGeocentricOfDate(ut, this.vec);
+    return this.localSiderealRad(ut) - Math.atan2(this.vec[1]!, this.vec[0]!);
+  }
+}
