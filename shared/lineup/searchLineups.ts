@@ -1,0 +1,230 @@
+/**
+ * The lineup search: when a target stands inside a frame during a dark window.
+ *
+ * Event-based, no time stepping: the dark windows are solved once per site and range
+ * (darkWindows.ts) and shared by every target; each target's passages through the frame are solved
+ * in hour angle per sidereal day (framePassage.ts), only on days that meet a dark window; the two
+ * interval lists are intersected, short pieces dropped, and each lineup gets its peak (best
+ * centring), the sky at the peak and a score (score.ts).
+ */
+import type { EquatorialJ2000, Frame, ObserverSite } from '../schemas/geometry';
+import { placeNodes, targetNodeDirections } from './apparentPlace';
+import { resolveConditions, sameMoonCondition, type LineupConditions, type ResolvedConditions } from './conditions';
+import { darkIntervals, type DarkWindowSet } from './darkWindows';
+import { checkFrame, frameGeometry, framePassageIntervals, TargetTrack, type FrameGeometry } from './framePassage';
+import { appendMerging, intersectIntervals, type FlatIntervals } from './intervals';
+import { apparentAltitudeDeg } from './refraction';
+import { minimizeBrent } from './roots';
+import { centringFromOffsets, lineupScore } from './score';
+import { SiteSky } from './siteSky';
+import { checkedRange, unixMsToUtDays, utDaysToUnixMs } from './time';
+
+const DEG = Math.PI / 180;
+const TWO_PI = 2 * Math.PI;
+
+/** Most targets in one search. */
+export const MAX_TARGETS = 100;
+
+/** Largest distance (deg, in latitude and in longitude) between a cached dark-window set's site and the search site. */
+export const DARK_WINDOW_SITE_TOLERANCE_DEG = 0.05;
+
+/** One lineup: the target inside the frame during a dark window. */
+export interface Lineup {
+  /** Index of the target in the `targets` argument (0 for a single target). */
+  targetIndex: number;
+  /** Start and end of the lineup (UTC). */
+  start: Date;
+  end: Date;
+  /** Time of best centring (UTC), within [start, end]. */
+  peak: Date;
+  /** end - start, minutes. */
+  durationMin: number;
+  /** Target's true azimuth at the peak, deg 0..360. */
+  peakAzimuthDeg: number;
+  /** Target's apparent altitude (refraction included) at the peak, deg. */
+  peakAltitudeDeg: number;
+  /** Centring at the peak, 0..1 (see score.ts). */
+  centring: number;
+  /** Sun centre geometric altitude at the peak, deg. */
+  sunAltitudeDeg: number;
+  /** Moon centre geometric topocentric altitude at the peak, deg. */
+  moonAltitudeDeg: number;
+  /** Moon illuminated fraction at the peak, 0..1. */
+  moonIllumination: number;
+  /** Score 0..1 (formula in score.ts). */
+  score: number;
+}
+
+/** Options of a search. */
+export interface SearchOptions {
+  /**
+   * Precomputed dark windows (for example cached per site and year): one set or several whose
+   * union covers the search range, computed with the same Sun limit and Moon rule for a site within
+   * {@link DARK_WINDOW_SITE_TOLERANCE_DEG}.
+   */
+  darkWindows?: DarkWindowSet | readonly DarkWindowSet[];
+}
+
+function checkTarget(t: EquatorialJ2000, i: number): void {
+  if (t === null || typeof t !== 'object') throw new RangeError(`targets[${i}] must be an object`);
+  if (!Number.isFinite(t.raHours) || t.raHours < 0 || t.raHours >= 24) throw new RangeError(`targets[${i}].raHours must be a finite number in [0, 24)`);
+  if (!Number.isFinite(t.decDeg) || t.decDeg < -90 || t.decDeg > 90) throw new RangeError(`targets[${i}].decDeg must be a finite number in -90..90`);
+}
+
+/** Dark intervals (UT days) over [from, to] from cached sets, after checking they fit the search. */
+function darkFromSets(sets: readonly DarkWindowSet[], site: ObserverSite, c: ResolvedConditions, fromMs: number, toMs: number): FlatIntervals {
+  const sorted = [...sets].sort((a, b) => a.fromMs - b.fromMs);
+  let covered = fromMs;
+  const out: FlatIntervals = [];
+  for (const set of sorted) {
+    if (set.sunMaxAltDeg !== c.sunMaxAltDeg || !sameMoonCondition(set.moon, c.moon)) {
+      throw new RangeError('options.darkWindows were computed for other conditions');
+    }
+    if (Math.abs(set.site.lat - site.lat) > DARK_WINDOW_SITE_TOLERANCE_DEG || Math.abs(set.site.lon - site.lon) > DARK_WINDOW_SITE_TOLERANCE_DEG) {
+      throw new RangeError('options.darkWindows were computed for another site');
+    }
+    if (set.fromMs <= covered) covered = Math.max(covered, set.toMs);
+    for (const w of set.windows) {
+      const s = Math.max(w.startMs, fromMs);
+      const e = Math.min(w.endMs, toMs);
+      if (e > s) appendMerging(out, unixMsToUtDays(s), unixMsToUtDays(e), 1e-9);
+    }
+  }
+  if (covered < toMs) throw new RangeError('options.darkWindows do not cover the search range');
+  return out;
+}
+
+/** Evaluates the target's place and centring at an hour angle for a fixed declination. */
+class Centring {
+  private readonly mid: number;
+  private readonly halfBand: number;
+  azimuthDeg = 0;
+  altitudeDeg = 0;
+
+  constructor(private readonly g: FrameGeometry) {
+    this.mid = (g.bottomAltDeg + g.topAltDeg) / 2;
+    this.halfBand = (g.topAltDeg - g.bottomAltDeg) / 2;
+  }
+
+  /** Centring 0..1 at hour angle h (rad); also sets azimuthDeg and altitudeDeg (apparent). */
+  at(sinDec: number, cosDec: number, h: number): number {
+    const g = this.g;
+    const c = Math.cos(h);
+    const up = g.sinLat * sinDec + g.cosLat * cosDec * c;
+    const east = -cosDec * Math.sin(h);
+    const north = g.cosLat * sinDec - g.sinLat * cosDec * c;
+    const geo = Math.asin(Math.max(-1, Math.min(1, up))) / DEG;
+    const alt = apparentAltitudeDeg(geo);
+    let az = Math.atan2(east, north);
+    if (az < 0) az += TWO_PI;
+    this.azimuthDeg = az / DEG;
+    this.altitudeDeg = alt;
+    let dAz = az - g.azimuthRad;
+    dAz -= TWO_PI * Math.round(dAz / TWO_PI);
+    return centringFromOffsets(dAz / g.halfWidthRad, (alt - this.mid) / this.halfBand);
+  }
+}
+
+/**
+ * Searches the lineups of one or several targets in a frame, over a UTC range.
+ * @param frame - Azimuth 0..360 deg (true), half-width (0, 180] deg, apparent altitude band
+ *   bottomAltDeg < topAltDeg in -90..90 deg.
+ * @param site - Camera position: latitude -90..90 deg, longitude -180..180 deg, elevation m.
+ * @param targets - One J2000 position (RA 0..24 h, Dec -90..90 deg) or up to {@link MAX_TARGETS}.
+ * @param fromUtc - Range start (1900..2200).
+ * @param toUtc - Range end, after `fromUtc`, at most ten years later.
+ * @param conditions - Sun limit (deg, default -18), Moon rule (default 'down'), shortest lineup
+ *   (minutes, default 5).
+ * @param options - Precomputed dark windows.
+ * @returns Lineups sorted by start (then target index).
+ * @throws RangeError on invalid input.
+ */
+export function searchLineups(
+  frame: Frame,
+  site: ObserverSite,
+  targets: EquatorialJ2000 | readonly EquatorialJ2000[],
+  fromUtc: Date,
+  toUtc: Date,
+  conditions: LineupConditions = {},
+  options: SearchOptions = {},
+): Lineup[] {
+  checkFrame(frame);
+  const list: readonly EquatorialJ2000[] = Array.isArray(targets) ? targets : [targets as EquatorialJ2000];
+  if (list.length === 0 || list.length > MAX_TARGETS) throw new RangeError(`targets must hold 1..${MAX_TARGETS} positions`);
+  list.forEach(checkTarget);
+  const { fromMs, toMs } = checkedRange(fromUtc, toUtc);
+  const c = resolveConditions(conditions);
+  const sky = new SiteSky(site);
+  const from = unixMsToUtDays(fromMs);
+  const to = unixMsToUtDays(toMs);
+
+  const sets = options.darkWindows === undefined ? undefined : Array.isArray(options.darkWindows) ? options.darkWindows : [options.darkWindows as DarkWindowSet];
+  const dark = sets ? darkFromSets(sets, site, c, fromMs, toMs) : darkIntervals(sky, c.sunMaxAltDeg, c.moon, from, to);
+  if (dark.length === 0) return [];
+
+  const g = frameGeometry(frame, site.lat, site.lon);
+  const nodes = placeNodes(from, to);
+  const centring = new Centring(g);
+  const minDays = c.minDurationMin / 1440;
+  const lineups: Lineup[] = [];
+  for (let ti = 0; ti < list.length; ti++) {
+    const track = new TargetTrack(nodes, targetNodeDirections(nodes, list[ti]!), sky.lonRad);
+    const passages = framePassageIntervals(g, track, from, to, dark);
+    const pieces = intersectIntervals(passages, dark);
+    for (let i = 0; i < pieces.length; i += 2) {
+      const s = pieces[i]!;
+      const e = pieces[i + 1]!;
+      if (e - s < minDays) continue;
+      lineups.push(describeLineup(ti, s, e, track, centring, sky));
+    }
+  }
+  lineups.sort((a, b) => a.start.getTime() - b.start.getTime() || a.targetIndex - b.targetIndex);
+  return lineups;
+}
+
+/** Peak (best centring) and the sky there for the lineup [s, e] (UT days). */
+function describeLineup(targetIndex: number, s: number, e: number, track: TargetTrack, centring: Centring, sky: SiteSky): Lineup {
+  const hS = track.hourAngle(s);
+  const raS = track.ra;
+  const thetaE = track.localSidereal(e);
+  track.at(e);
+  let dRa = track.ra - raS;
+  dRa -= TWO_PI * Math.round(dRa / TWO_PI);
+  const hE = thetaE - (raS + dRa);
+  track.at((s + e) / 2);
+  const sinDec = track.sinDec;
+  const cosDec = track.cosDec;
+  const negCentring = (h: number): number => -centring.at(sinDec, cosDec, h);
+  let hBest = minimizeBrent(negCentring, hS, hE, 2e-4);
+  let best = negCentring(hBest);
+  for (const h of [hS, hE]) {
+    const v = negCentring(h);
+    if (v < best) {
+      best = v;
+      hBest = h;
+    }
+  }
+  const tPeak = hE > hS ? s + ((hBest - hS) / (hE - hS)) * (e - s) : s;
+  // Place and centring at the peak with the declination of that instant.
+  const hPeak = track.hourAngle(tPeak);
+  const centringAtPeak = centring.at(track.sinDec, track.cosDec, hPeak);
+  const sunAltitudeDeg = sky.sunAltitudeDeg(tPeak);
+  const moonDown = sky.moonLimbSin(tPeak) < 0;
+  const moonAltitudeDeg = sky.moonAltitudeDeg(tPeak);
+  const moonIllumination = sky.moonIlluminatedFraction(tPeak);
+  const durationMin = (e - s) * 1440;
+  return {
+    targetIndex,
+    start: new Date(utDaysToUnixMs(s)),
+    end: new Date(utDaysToUnixMs(e)),
+    peak: new Date(utDaysToUnixMs(tPeak)),
+    durationMin,
+    peakAzimuthDeg: centring.azimuthDeg,
+    peakAltitudeDeg: centring.altitudeDeg,
+    centring: centringAtPeak,
+    sunAltitudeDeg,
+    moonAltitudeDeg,
+    moonIllumination,
+    score: lineupScore({ centring: centringAtPeak, durationMin, sunAltitudeDeg, moonDown, moonAltitudeDeg, moonIllumination }),
+  };
+}
