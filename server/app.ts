@@ -8,6 +8,9 @@ import { authenticate } from './middleware/auth';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { authRouter } from './routes/auth';
 import { usersRouter } from './routes/users';
+import { sightlinesRouter } from './routes/sightlines';
+import { FieldNoteService } from './services/field-note-service';
+import { SightlineService } from './services/sightline-service';
 import { AuthService } from './services/auth-service';
 import { TokenService } from './services/token-service';
 import { UserService } from './services/user-service';
@@ -25,6 +28,8 @@ export function createApp({ config, jwtSecret, clientDir }: AppOptions): Express
   const tokens = new TokenService(jwtSecret, config.jwtTtlHours);
   const auth = new AuthService(config.bcryptRounds);
   const users = new UserService();
+  const sightlines = new SightlineService();
+  const notes = new FieldNoteService(sightlines);
 
   const app = express();
   app.disable('x-powered-by');
@@ -45,6 +50,7 @@ export function createApp({ config, jwtSecret, clientDir }: AppOptions): Express
   api.get('/health', (_req, res) => { res.json({ ok: true }); });
   api.use('/auth', authRouter({ config, auth, tokens }));
   api.use('/users', usersRouter({ users }));
+  api.use('/sightlines', sightlinesRouter({ sightlines, notes }));
   api.use(apiNotFound);
   app.use('/api', api);
 

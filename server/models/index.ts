@@ -1,11 +1,24 @@
 import type { Sequelize } from 'sequelize';
+import { initDarkWindowCacheModel } from './dark-window-cache';
+import { initFieldNoteModel } from './field-note';
+import { initSightlineModel } from './sightline';
 import { initUserModel } from './user';
 
-/** Registers every model on the instance; call once per Sequelize instance. */
+/** Registers every model and association on the instance; call once per Sequelize instance. */
 export function initModels(sequelize: Sequelize) {
   const User = initUserModel(sequelize);
-  return { User };
+  const DarkWindowCache = initDarkWindowCacheModel(sequelize);
+  const Sightline = initSightlineModel(sequelize);
+  const FieldNote = initFieldNoteModel(sequelize);
+  Sightline.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
+  FieldNote.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  FieldNote.belongsTo(Sightline, { foreignKey: 'sightlineId' });
+  Sightline.hasMany(FieldNote, { foreignKey: 'sightlineId' });
+  return { User, DarkWindowCache, Sightline, FieldNote };
 }
 
 export type Models = ReturnType<typeof initModels>;
 export { UserModel } from './user';
+export { DarkWindowCacheModel } from './dark-window-cache';
+export { SightlineModel } from './sightline';
+export { FieldNoteModel } from './field-note';

@@ -1,0 +1,72 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { fieldNoteInputSchema, sightlineInputSchema, sightlineUpdateSchema } from '../../shared/schemas/sightline';
+import { requireAuth } from '../middleware/auth';
+import { parseOrThrow, validateBody } from '../middleware/validate';
+import type { FieldNoteService } from '../services/field-note-service';
+import type { SightlineService } from '../services/sightline-service';
+
+const uuid = z.uuid({ error: 'Not a valid id' });
+const sightlineParams = z.object({ id: uuid });
+const noteParams = z.object({ id: uuid, noteId: uuid });
+const listQuery = z.object({ all: z.enum(['true', 'false']).optional() });
+
+export interface SightlineRouterDeps {
+  sightlines: SightlineService;
+  notes: FieldNoteService;
+}
+
+/** Sightlines and their field notes. */
+export function sightlinesRouter({ sightlines, notes }: SightlineRouterDeps): Router {
+  const router = Router();
+  router.use(requireAuth);
+
+  router.get('/', async (req, res) => {
+    const { all } = parseOrThrow(listQuery, req.query);
+    const list = await sightlines.list(req.user!, { all: all === 'true' });
+    res.json({ sightlines: list.map((s) => s.toPublic()) });
+  });
+
+  router.post('/', validateBody(sightlineInputSchema), async (req, res) => {
+    res.status(201).json({ sightline: (await sightlines.create(req.user!, req.body)).toPublic() });
+  });
+
+  router.get('/:id', async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    res.json({ sightline: (await sightlines.get(req.user!, id)).toPublic() });
+  });
+
+  router.patch('/:id', validateBody(sightlineUpdateSchema), async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    res.json({ sightline: (await sightlines.update(req.user!, id, req.body)).toPublic() });
+  });
+
+  router.delete('/:id', async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    await sightlines.remove(req.user!, id);
+    res.status(204).end();
+  });
+
+  router.get('/:id/notes', async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    res.json({ notes: (await notes.list(req.user!, id)).map((n) => n.toPublic()) });
+  });
+
+  router.post('/:id/notes', validateBody(fieldNoteInputSchema), async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    res.status(201).json({ note: (await notes.create(req.user!, id, req.body)).toPublic() });
+  });
+
+  router.put('/:id/notes/:noteId', validateBody(fieldNoteInputSchema), async (req, res) => {
+    const { id, noteId } = parseOrThrow(noteParams, req.params);
+    res.json({ note: (await notes.update(req.user!, id, noteId, req.body)).toPublic() });
+  });
+
+  router.delete('/:id/notes/:noteId', async (req, res) => {
+    const { id, noteId } = parseOrThrow(noteParams, req.params);
+    await notes.remove(req.user!, id, noteId);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,59 @@
+import type { Transaction } from 'sequelize';
+import type { SightlineInput, SightlineUpdate } from '../../shared/schemas/sightline';
+import { timeZoneForSite } from '../../shared/sky/timezone';
+import { AppError } from '../errors';
+import { SightlineModel } from '../models/sightline';
+import { UserModel } from '../models/user';
+import { canOnSightline, type SightlineAction } from './access-policy';
+
+const ownerInclude = [{ model: UserModel, as: 'owner', attributes: ['id', 'name'] }];
+
+function columnsFrom(input: Partial<SightlineInput>) {
+  return {
+    ...(input.name !== undefined ? { name: input.name } : {}),
+    ...(input.vantage ? {
+      vantageLat: input.vantage.lat, vantageLon: input.vantage.lon,
+      vantageElevationM: input.vantage.elevationM, cameraHeightM: input.vantage.cameraHeightM,
+      timezone: timeZoneForSite(input.vantage.lat, input.vantage.lon),
+    } : {}),
+    ...(input.landmark ? {
+      landmarkLat: input.landmark.lat, landmarkLon: input.landmark.lon, landmarkBaseElevationM: input.landmark.baseElevationM,
+      landmarkHeightM: input.landmark.heightM, landmarkWidthM: input.landmark.widthM,
+    } : {}),
+    ...(input.bandHeightDeg !== undefined ? { bandHeightDeg: input.bandHeightDeg } : {}),
+    ...(input.targetId !== undefined ? { targetId: input.targetId } : {}),
+  };
+}
+
+/** Saved sightlines: the pins, their heights and the site's time zone. */
+export class SightlineService {
+  /** The user's own sightlines; an admin may ask for everyone's. */
+  async list(user: UserModel, options: { all?: boolean } = {}): Promise<SightlineModel[]> {
+    const where = options.all && user.role === 'admin' ? {} : { ownerId: user.id };
+    return SightlineModel.findAll({ where, include: ownerInclude, order: [['name', 'ASC']] });
+  }
+
+  /** The sightline if the user may do the action; 404 when they may not even read it, 403 otherwise. */
+  async get(user: UserModel, id: string, action: SightlineAction = 'read', transaction?: Transaction): Promise<SightlineModel> {
+    const sightline = await SightlineModel.findByPk(id, { include: ownerInclude, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+    if (!sightline || !canOnSightline(user, sightline, 'read')) throw AppError.notFound('No such sightline');
+    if (!canOnSightline(user, sightline, action)) throw new AppError('forbidden', 'Only the owner can change this sightline');
+    return sightline;
+  }
+
+  async create(user: UserModel, input: SightlineInput): Promise<SightlineModel> {
+    const created = await SightlineModel.create({ ownerId: user.id, ...columnsFrom(input) } as SightlineModel['_creationAttributes']);
+    return this.get(user, created.id);
+  }
+
+  async update(user: UserModel, id: string, change: SightlineUpdate): Promise<SightlineModel> {
+    const sightline = await this.get(user, id, 'edit');
+    await sightline.update(columnsFrom(change));
+    return this.get(user, id);
+  }
+
+  async remove(user: UserModel, id: string): Promise<void> {
+    const sightline = await this.get(user, id, 'delete');
+    await sightline.destroy();
+  }
+}
