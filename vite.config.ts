@@ -7,11 +7,12 @@ const apiTarget = process.env.GNOMON_API_URL ?? 'http://127.0.0.1:8080';
 export default defineConfig({
   plugins: [vue()],
   resolve: {
-    alias: {
-      '@': fileURLToPath(new URL('./src', import.meta.url)),
-      // One copy of Leaflet: @vue-leaflet and our code must share the same module.
-      leaflet: 'leaflet/dist/leaflet-src.esm.js',
-    },
+    alias: [
+      { find: '@', replacement: fileURLToPath(new URL('./src', import.meta.url)) },
+      // One copy of Leaflet: @vue-leaflet and our code must share the same module. Exact match only,
+      // so that 'leaflet/dist/leaflet.css' still resolves.
+      { find: /^leaflet$/, replacement: 'leaflet/dist/leaflet-src.esm.js' },
+    ],
   },
   server: {
     host: '127.0.0.1',
