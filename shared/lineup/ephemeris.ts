@@ -8,7 +8,9 @@
  *
  * - Sun: 32-day segments, 14 terms per component, components x, y, z (AU) of the geocentric
  *   apparent vector (light time and aberration, `GeoVector(Sun, t, true)` rotated by
- *   `Rotation_EQJ_EQD`) and GAST minus the Earth rotation angle (deg).
+ *   `Rotation_EQJ_EQD`), GAST minus the Earth rotation angle (deg), and x, y, z of the geometric
+ *   vector (`GeoVector(Sun, t, false)`, the minus Earth vector astronomy-engine's `Illumination`
+ *   uses: the 20 arcsec of aberration would move a Moon-phase threshold by up to a minute).
  * - Moon: 12-day segments, 16 terms per component, x, y, z (AU) of `GeoMoon` rotated to EQD.
  *
  * Fit error against astronomy-engine (measured by tests/unit/lineup/ephemeris.test.ts over
@@ -65,6 +67,10 @@ function sampleSun(ut: number, out: Float64Array): void {
   out[1] = v.y;
   out[2] = v.z;
   out[3] = wrapDeg180(15 * SiderealTime(time) - 360 * earthRotationTurns(ut));
+  const g = RotateVector(Rotation_EQJ_EQD(time), GeoVector(Body.Sun, time, false));
+  out[4] = g.x;
+  out[5] = g.y;
+  out[6] = g.z;
 }
 
 function sampleMoon(ut: number, out: Float64Array): void {
@@ -84,7 +90,7 @@ function sunSegment(index: number): Float64Array {
   if (index === lastSunIndex) return lastSun;
   let seg = sunSegments.get(index);
   if (!seg) {
-    seg = fitChebyshev(sampleSun, index * SUN_SEGMENT_DAYS, (index + 1) * SUN_SEGMENT_DAYS, SUN_COEFFICIENTS, 4);
+    seg = fitChebyshev(sampleSun, index * SUN_SEGMENT_DAYS, (index + 1) * SUN_SEGMENT_DAYS, SUN_COEFFICIENTS, 7);
     sunSegments.set(index, seg);
   }
   lastSunIndex = index;
@@ -114,6 +120,18 @@ export function sunGeocentricOfDate(utDays: number, out: Float64Array): void {
   const seg = sunSegment(index);
   const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
   evalChebyshev3(seg, 0, SUN_COEFFICIENTS, x, out);
+}
+
+/**
+ * Geocentric geometric Sun vector in EQD (no light time, no aberration), from the table.
+ * @param utDays - UT days since J2000.
+ * @param out - Receives x, y, z in AU (length >= 3).
+ */
+export function sunGeometricOfDate(utDays: number, out: Float64Array): void {
+  const index = Math.floor(utDays / SUN_SEGMENT_DAYS);
+  const seg = sunSegment(index);
+  const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
+  evalChebyshev3(seg, 4 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x, out);
 }
 
 /**

@@ -10,12 +10,12 @@
  *   is below the astronomical horizon: centre altitude + asin(R_moon / topocentric distance)
  *   + 34/60 deg < 0, with R_moon = 1738.1 km (astronomy-engine's constants; at sea level this is
  *   exactly its moonrise/moonset definition);
- * - the Moon's illuminated fraction is (1 + cos i) / 2 with i the Sun-Moon-Earth phase angle, as in
- *   astronomy-engine's `Illumination(Body.Moon, t).phase_fraction`.
+ * - the Moon's illuminated fraction is (1 + cos i) / 2 with i the Sun-Moon-Earth phase angle from
+ *   geometric positions, as in astronomy-engine's `Illumination(Body.Moon, t).phase_fraction`.
  */
 import type { ObserverSite } from '../schemas/geometry';
 import { KM_PER_AU } from 'astronomy-engine';
-import { apparentSiderealRad, moonGeocentricOfDate, sunGeocentricAndSidereal, sunGeocentricOfDate } from './ephemeris';
+import { apparentSiderealRad, moonGeocentricOfDate, sunGeocentricAndSidereal, sunGeocentricOfDate, sunGeometricOfDate } from './ephemeris';
 
 /** astronomy-engine's Earth equatorial radius, km. */
 export const EARTH_EQUATORIAL_RADIUS_KM = 6378.1366;
@@ -147,7 +147,7 @@ export class SiteSky {
     const m = this.vec;
     const s = this.sunVec;
     moonGeocentricOfDate(ut, m);
-    sunGeocentricOfDate(ut, s);
+    sunGeometricOfDate(ut, s);
     // Phase angle between Earth->Moon and Sun->Moon (= Moon - Sun) vectors.
     const hx = m[0]! - s[0]!;
     const hy = m[1]! - s[1]!;
