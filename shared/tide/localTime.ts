@@ -12,6 +12,13 @@ import { IANAZone } from 'luxon';
 const MS_PER_MINUTE = 60_000;
 const MS_PER_DAY = 86_400_000;
 
+/**
+ * Zone names already found valid: luxon's check builds an Intl formatter each time (about 0.2 ms),
+ * which would dominate parsing a long table. Bounded (there are about 600 IANA names).
+ */
+const knownValidZones = new Set<string>();
+const MAX_CACHED_ZONES = 1000;
+
 /** A local calendar date and wall-clock time (second resolution). */
 export interface LocalWallTime {
   /** Year, 1..9999. */
@@ -39,7 +46,11 @@ export type LocalTimeResolution =
  * (e.g. 'Europe/London', 'UTC').
  */
 export function isValidTimeZone(timeZone: unknown): timeZone is string {
-  return typeof timeZone === 'string' && timeZone.length > 0 && IANAZone.isValidZone(timeZone);
+  if (typeof timeZone !== 'string' || timeZone.length === 0) return false;
+  if (knownValidZones.has(timeZone)) return true;
+  const valid = IANAZone.isValidZone(timeZone);
+  if (valid && knownValidZones.size < MAX_CACHED_ZONES) knownValidZones.add(timeZone);
+  return valid;
 }
 
 function assertIntegerInRange(value: number, name: string, min: number, max: number): void {

@@ -126,7 +126,10 @@ function parseContentLine(content: string): LineOutcome {
     }
     const height = heightRe.exec(token);
     if (height) {
-      if (heightM !== undefined) return { kind: 'error', message: `Two heights on one line ('${token}' after another height)` };
+      if (heightM !== undefined) {
+        const hint = decimalComma ? '' : '; with comma or space separators, write decimals with a point (4.1)';
+        return { kind: 'error', message: `Two heights on one line ('${token}' after another height)${hint}` };
+      }
       heightM = Number(height[1]!.replace(',', '.'));
       if (height[2] === undefined && tokens[i + 1] !== undefined && METRE_RE.test(tokens[i + 1]!)) i++;
       if (tokens[i + 1] !== undefined && FEET_RE.test(tokens[i + 1]!)) {
