@@ -55,7 +55,7 @@ describe('refraction', () => {
 
   // The own inversion (bounded fixed-point iteration) equals astronomy-engine's InverseRefraction
   // wherever that one terminates (it loops forever at exactly 90 deg, see refraction.ts), up to
-  // 80 deg; above about 86 deg Saemundsson's formula goes negative and is clamped at 0 here.
+  // 80 deg; within about 0.1 deg of the zenith Saemundsson's formula goes negative and is clamped at 0 here.
   it('inverts like astronomy-engine InverseRefraction below the zenith', () => {
     for (const h of [-1, -0.5, 0, 0.5, 1, 5, 20, 45, 80]) {
       expect(Math.abs(refractionForApparentAltitudeDeg(h) + InverseRefraction('normal', h)) * 3600).toBeLessThan(1e-6);
