@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import express, { type Express } from 'express';
+import type { Sequelize } from 'sequelize';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 import type { Config } from './config';
@@ -11,12 +12,15 @@ import { usersRouter } from './routes/users';
 import { sightlinesRouter } from './routes/sightlines';
 import { FieldNoteService } from './services/field-note-service';
 import { SightlineService } from './services/sightline-service';
+import { TideService } from './services/tide-service';
 import { AuthService } from './services/auth-service';
 import { TokenService } from './services/token-service';
 import { UserService } from './services/user-service';
 
 export interface AppOptions {
   config: Config;
+  /** The database the services write to (transactions need the instance). */
+  sequelize: Sequelize;
   /** The JWT signing key (from env, or kept under the data folder by the embedded start). */
   jwtSecret: string;
   /** Folder of the built client to serve; omitted in API tests. */
@@ -24,12 +28,13 @@ export interface AppOptions {
 }
 
 /** Builds the Express app (no listen): API under /api, the built client for everything else. */
-export function createApp({ config, jwtSecret, clientDir }: AppOptions): Express {
+export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOptions): Express {
   const tokens = new TokenService(jwtSecret, config.jwtTtlHours);
   const auth = new AuthService(config.bcryptRounds);
   const users = new UserService();
   const sightlines = new SightlineService();
   const notes = new FieldNoteService(sightlines);
+  const tides = new TideService(sequelize, sightlines);
 
   const app = express();
   app.disable('x-powered-by');
@@ -50,7 +55,7 @@ export function createApp({ config, jwtSecret, clientDir }: AppOptions): Express
   api.get('/health', (_req, res) => { res.json({ ok: true }); });
   api.use('/auth', authRouter({ config, auth, tokens }));
   api.use('/users', usersRouter({ users }));
-  api.use('/sightlines', sightlinesRouter({ sightlines, notes }));
+  api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides }));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -22,7 +22,7 @@ export interface StartOptions {
 /** Connects to the database (migrating it), then serves API + client on config.host:config.port. */
 export async function startServer({ config, databaseUrl, jwtSecret, clientDir }: StartOptions): Promise<RunningServer> {
   const database = await openDatabase(databaseUrl);
-  const app = createApp({ config, jwtSecret, clientDir });
+  const app = createApp({ config, sequelize: database.sequelize, jwtSecret, clientDir });
   const server = await new Promise<Server>((resolveServer, reject) => {
     const s = app.listen(config.port, config.host, () => resolveServer(s));
     s.on('error', reject);

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { initDarkWindowCacheModel } from './dark-window-cache';
 import { initFieldNoteModel } from './field-note';
 import { initSightlineModel } from './sightline';
+import { initTideEventModel } from './tide-event';
 import { initUserModel } from './user';
 
 /** Registers every model and association on the instance; call once per Sequelize instance. */
@@ -10,11 +11,13 @@ export function initModels(sequelize: Sequelize) {
   const DarkWindowCache = initDarkWindowCacheModel(sequelize);
   const Sightline = initSightlineModel(sequelize);
   const FieldNote = initFieldNoteModel(sequelize);
+  const TideEvent = initTideEventModel(sequelize);
   Sightline.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   FieldNote.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   FieldNote.belongsTo(Sightline, { foreignKey: 'sightlineId' });
   Sightline.hasMany(FieldNote, { foreignKey: 'sightlineId' });
-  return { User, DarkWindowCache, Sightline, FieldNote };
+  Sightline.hasMany(TideEvent, { foreignKey: 'sightlineId' });
+  return { User, DarkWindowCache, Sightline, FieldNote, TideEvent };
 }
 
 export type Models = ReturnType<typeof initModels>;
@@ -22,3 +25,4 @@ export { UserModel } from './user';
 export { DarkWindowCacheModel } from './dark-window-cache';
 export { SightlineModel } from './sightline';
 export { FieldNoteModel } from './field-note';
+export { TideEventModel } from './tide-event';

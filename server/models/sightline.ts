@@ -1,5 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type NonAttribute, type Sequelize } from 'sequelize';
 import type { Sightline } from '../../shared/schemas/sightline';
+import type { TideRule } from '../../shared/tide';
 import type { UserModel } from './user';
 
 export class SightlineModel extends Model<InferAttributes<SightlineModel>, InferCreationAttributes<SightlineModel>> {
@@ -18,6 +19,7 @@ export class SightlineModel extends Model<InferAttributes<SightlineModel>, Infer
   declare bandHeightDeg: number;
   declare targetId: string;
   declare timezone: string;
+  declare tideRule: CreationOptional<TideRule | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare owner?: NonAttribute<UserModel>;
@@ -36,6 +38,7 @@ export class SightlineModel extends Model<InferAttributes<SightlineModel>, Infer
       bandHeightDeg: this.bandHeightDeg,
       targetId: this.targetId,
       timezone: this.timezone,
+      tideRule: this.tideRule ?? null,
       createdAt: this.createdAt.toISOString(),
       updatedAt: this.updatedAt.toISOString(),
     };
@@ -62,6 +65,7 @@ export function initSightlineModel(sequelize: Sequelize): typeof SightlineModel 
       bandHeightDeg: double(20),
       targetId: { type: DataTypes.STRING(40), allowNull: false, defaultValue: 'galactic-centre' },
       timezone: { type: DataTypes.STRING(64), allowNull: false },
+      tideRule: { type: DataTypes.JSONB, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -1,23 +1,27 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { fieldNoteInputSchema, sightlineInputSchema, sightlineUpdateSchema } from '../../shared/schemas/sightline';
+import { fieldNoteInputSchema, sightlineInputSchema, sightlineUpdateSchema, tideRuleRequestSchema, tideTimesPasteSchema } from '../../shared/schemas/sightline';
+import { isoInstantSchema } from '../../shared/schemas/lineup';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { FieldNoteService } from '../services/field-note-service';
 import type { SightlineService } from '../services/sightline-service';
+import type { TideService } from '../services/tide-service';
 
 const uuid = z.uuid({ error: 'Not a valid id' });
 const sightlineParams = z.object({ id: uuid });
 const noteParams = z.object({ id: uuid, noteId: uuid });
 const listQuery = z.object({ all: z.enum(['true', 'false']).optional() });
+const rangeQuery = z.object({ from: isoInstantSchema.optional(), to: isoInstantSchema.optional() });
 
 export interface SightlineRouterDeps {
   sightlines: SightlineService;
   notes: FieldNoteService;
+  tides: TideService;
 }
 
 /** Sightlines and their field notes. */
-export function sightlinesRouter({ sightlines, notes }: SightlineRouterDeps): Router {
+export function sightlinesRouter({ sightlines, notes, tides }: SightlineRouterDeps): Router {
   const router = Router();
   router.use(requireAuth);
 
@@ -65,6 +69,28 @@ export function sightlinesRouter({ sightlines, notes }: SightlineRouterDeps): Ro
   router.delete('/:id/notes/:noteId', async (req, res) => {
     const { id, noteId } = parseOrThrow(noteParams, req.params);
     await notes.remove(req.user!, id, noteId);
+    res.status(204).end();
+  });
+
+  router.put('/:id/tide-rule', validateBody(tideRuleRequestSchema), async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    res.json({ sightline: (await tides.setRule(req.user!, id, req.body.rule)).toPublic() });
+  });
+
+  router.get('/:id/tide-times', async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    const range = parseOrThrow(rangeQuery, req.query);
+    res.json({ events: await tides.events(req.user!, id, range), warnings: [] });
+  });
+
+  router.post('/:id/tide-times', validateBody(tideTimesPasteSchema), async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    res.json(await tides.paste(req.user!, id, req.body.text));
+  });
+
+  router.delete('/:id/tide-times', async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    await tides.clear(req.user!, id);
     res.status(204).end();
   });
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { landmarkSchema, vantageSchema } from './geometry';
 import { catalogueTargetRefSchema } from './lineup';
+import { tideEventSchema, tideRuleSchema } from '../tide/schemas';
 
 export const sightlineNameSchema = z.string({ error: 'Name the sightline' }).trim().min(1, 'Name the sightline').max(100, 'Name is at most 100 characters');
 
@@ -36,6 +37,8 @@ export const sightlineSchema = z.object({
   targetId: z.string(),
   /** IANA time zone of the site, from the vantage's coordinates. */
   timezone: z.string(),
+  /** When the spot can be reached on foot; null when tides do not matter here or no rule is set. */
+  tideRule: tideRuleSchema.nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });
@@ -62,3 +65,17 @@ export const fieldNoteSchema = fieldNoteInputSchema.extend({
 export type FieldNote = z.infer<typeof fieldNoteSchema>;
 export const fieldNoteResponseSchema = z.object({ note: fieldNoteSchema });
 export const fieldNoteListResponseSchema = z.object({ notes: z.array(fieldNoteSchema) });
+
+export const tideRuleRequestSchema = z.object({ rule: tideRuleSchema.nullable() });
+
+/** Tide times pasted from an official table: local times in the site's zone, one event a line. */
+export const tideTimesPasteSchema = z.object({
+  text: z.string({ error: 'Paste the tide times' }).min(1, 'Paste the tide times').max(500_000, 'That is more than a paste of tide times'),
+});
+
+export const tideTimesResponseSchema = z.object({
+  events: z.array(tideEventSchema),
+  /** Notes about the paste that did not stop it (e.g. a time in a clock-change hour). */
+  warnings: z.array(z.object({ line: z.number(), text: z.string(), message: z.string() })).default([]),
+});
+export type TideTimesResponse = z.infer<typeof tideTimesResponseSchema>;

@@ -112,7 +112,7 @@ describe('sign-in, current user and sign-out', () => {
 
 describe('repeated failed sign-ins', () => {
   it('are refused with 429 after the configured number of failures from one address', async () => {
-    const limited = createTestApp({ LOGIN_MAX_FAILURES: '3', LOGIN_WINDOW_MINUTES: '1' });
+    const limited = createTestApp(ctx.db, { LOGIN_MAX_FAILURES: '3', LOGIN_WINDOW_MINUTES: '1' });
     const user = await createUser();
     const statuses: number[] = [];
     for (let i = 0; i < 4; i += 1) {

@@ -18,9 +18,9 @@ export interface TestContext {
 }
 
 /** The real app with test settings; a low bcrypt cost keeps the suite quick. */
-export function createTestApp(env: Record<string, string> = {}): { app: Express; config: Config } {
+export function createTestApp(db: Database, env: Record<string, string> = {}): { app: Express; config: Config } {
   const config = loadConfig({ NODE_ENV: 'test', BCRYPT_ROUNDS: '4', ...env });
-  return { app: createApp({ config, jwtSecret: TEST_JWT_SECRET }), config };
+  return { app: createApp({ config, sequelize: db.sequelize, jwtSecret: TEST_JWT_SECRET }), config };
 }
 
 /**
@@ -29,7 +29,7 @@ export function createTestApp(env: Record<string, string> = {}): { app: Express;
  */
 export async function createTestContext(env: Record<string, string> = {}): Promise<TestContext> {
   const db = await openDatabase(inject('databaseUrl'), { migrate: false });
-  return { ...createTestApp(env), db };
+  return { ...createTestApp(db, env), db };
 }
 
 /** A unique e-mail, so test files never collide on the shared database. */
