@@ -1,7 +1,7 @@
 import { Op, type Sequelize } from 'sequelize';
 import { isCleanTideParse, parseTideTimes, type TideEvent, type TideRule } from '../../shared/tide';
 import { AppError } from '../errors';
-import { SightlineModel } from '../models/sightline';
+import type { SightlineModel } from '../models/sightline';
 import { TideEventModel } from '../models/tide-event';
 import type { UserModel } from '../models/user';
 import type { SightlineService } from './sightline-service';
