@@ -49,8 +49,8 @@ export async function startLocal(config: Config, options: { serveClient: boolean
   installProcessHandlers(shutdown);
   try {
     running = await startServer({ config, databaseUrl, jwtSecret, clientDir });
-    const created = await seedDemo(new AuthService(config.bcryptRounds));
-    if (created) console.log(`Demo data: ${created} account(s) created`);
+    const created = await seedDemo(new AuthService(config.bcryptRounds), running.database.sequelize);
+    if (created) console.log(`Demo data: ${created} account(s) and sightline(s) created`);
   } catch (error) {
     await shutdown().catch(() => undefined);
     throw error;

@@ -12,7 +12,7 @@ if (!config.databaseUrl) {
 }
 const db = await openDatabase(config.databaseUrl, { migrate: command === 'migrate' || command === 'seed' });
 try {
-  if (command === 'seed') console.log(`${await seedDemo(new AuthService(config.bcryptRounds))} demo account(s) created`);
+  if (command === 'seed') console.log(`${await seedDemo(new AuthService(config.bcryptRounds), db.sequelize)} demo item(s) created`);
   else if (command === 'migrate') console.log('Migrations applied');
   else { console.error('Usage: cli.ts migrate|seed'); process.exitCode = 1; }
 } finally {

@@ -31,7 +31,7 @@ export default async function setup(project: TestProject) {
   if (!databaseUrl) throw new Error('tests/setup/database.ts must run before app-server.ts');
   const config = loadConfig({ NODE_ENV: 'test', PORT: '0', BCRYPT_ROUNDS: '4' });
   const running = await startServer({ config, databaseUrl, jwtSecret: 'e2e-secret-long-enough-for-hs256-signing', clientDir });
-  await seedDemo(new AuthService(4));
+  await seedDemo(new AuthService(4), running.database.sequelize);
   project.provide('baseUrl', running.url);
   project.provide('artifactsDir', artifactsDir);
   return () => running.close();
