@@ -58,8 +58,13 @@ export interface FrameGeometry {
   /** Half-width, rad; >= pi means the whole horizon. */
   halfWidthRad: number;
   cosHalfWidth: number;
-  /** Azimuth edges (rad) and their sines/cosines, empty for a whole-horizon frame. */
-  edges: { cos: number; sin: number }[];
+  /**
+   * Azimuth edges, empty for a whole-horizon frame. For an edge at azimuth A the boundary equation
+   * P sin H + Q cos H = S has P = -cos(dec) cos A, Q = sin(lat) cos(dec) sin A,
+   * S = cos(lat) sin(dec) sin A; cos(dec) > 0 factors out, so theta = atan2(P, Q) and
+   * |(P, Q)| / cos(dec) are fixed per edge and the roots are theta +- acos(k tan(dec)).
+   */
+  edges: { cos: number; sin: number; theta: number; norm: number; k: number }[];
   /** Sines of the geometric altitudes of the band's bottom and top. */
   sinBottom: number;
   sinTop: number;
@@ -77,12 +82,19 @@ export function frameGeometry(frame: Frame, latDeg: number, lonDeg: number): Fra
   const azimuthRad = frame.azimuthDeg * DEG;
   const halfWidthRad = frame.halfWidthDeg * DEG;
   const whole = frame.halfWidthDeg >= 180;
+  const sinLat = Math.sin(latDeg * DEG);
+  const cosLat = Math.cos(latDeg * DEG);
   const edges = whole
     ? []
-    : [azimuthRad - halfWidthRad, azimuthRad + halfWidthRad].map((a) => ({ cos: Math.cos(a), sin: Math.sin(a) }));
+    : [azimuthRad - halfWidthRad, azimuthRad + halfWidthRad].map((a) => {
+      const cos = Math.cos(a);
+      const sin = Math.sin(a);
+      const norm = Math.hypot(cos, sinLat * sin);
+      return { cos, sin, theta: Math.atan2(-cos, sinLat * sin), norm, k: norm > 0 ? (cosLat * sin) / norm : 0 };
+    });
   return {
-    sinLat: Math.sin(latDeg * DEG),
-    cosLat: Math.cos(latDeg * DEG),
+    sinLat,
+    cosLat,
     lonRad: lonDeg * DEG,
     azimuthRad,
     cosAzimuth: Math.cos(azimuthRad),
@@ -112,7 +124,138 @@ export function insideAtHourAngle(g: FrameGeometry, sinDec: number, cosDec: numb
   return north * g.cosAzimuth + east * g.sinAzimuth >= g.cosHalfWidth * Math.hypot(north, east);
 }
 
-const candidates: number[] = [];
+/** Boundary candidates of one solution (at most 2 altitude edges x 2 + 2 azimuth edges x 2). */
+const candidates = new Float64Array(8);
+/** Which equation and root each candidate comes from (0..7), sorted along with `candidates`. */
+const candidateIds = new Int8Array(8);
+/** Arcs of the last solution, flat [start, end, ...]; reused to keep the hot path allocation-free. */
+const arcBuffer = new Float64Array(16);
+
+/**
+ * What one target's previous solution looked like: the order of its boundary candidates and which
+ * arcs between them were inside. While the order is unchanged (no tangency, no candidate crossing
+ * another or 0 h), every arc keeps its classification, so the midpoint tests can be skipped.
+ */
+export interface ArcMemo {
+  signature: number;
+  insideMask: number;
+}
+
+/** A fresh memo (no previous solution). */
+export function newArcMemo(): ArcMemo {
+  return { signature: -1, insideMask: 0 };
+}
+
+function pushAltitudeCandidates(g: FrameGeometry, sinDec: number, k: number, s: number, n: number, id: number): number {
+  if (s <= -1 || s >= 1) return n;
+  const c = (s - g.sinLat * sinDec) / k;
+  if (c > -1 && c < 1) {
+    const h = Math.acos(c);
+    candidates[n] = h;
+    candidateIds[n++] = id;
+    candidates[n] = TWO_PI - h;
+    candidateIds[n++] = id + 1;
+  }
+  return n;
+}
+
+function pushAzimuthCandidates(cosDec: number, tanDec: number, edge: FrameGeometry['edges'][number], n: number, id: number): number {
+  if (!(cosDec * edge.norm > 1e-12)) return n;
+  const x = edge.k * tanDec;
+  if (x > -1 && x < 1) {
+    const d = Math.acos(x);
+    let h = edge.theta + d;
+    h -= TWO_PI * Math.floor(h / TWO_PI);
+    candidates[n] = h;
+    candidateIds[n++] = id;
+    h = edge.theta - d;
+    h -= TWO_PI * Math.floor(h / TWO_PI);
+    candidates[n] = h;
+    candidateIds[n++] = id + 1;
+  }
+  return n;
+}
+
+/**
+ * Hour-angle arcs inside the frame for a fixed declination, into a shared buffer.
+ * @param g - Frame geometry; @param sinDec - sin(dec); @param cosDec - cos(dec), >= 0.
+ * @param memo - Optional memo of the same target's previous solution (updated).
+ * @returns The number of values written to `arcBuffer` (pairs start, end; starts in
+ *   [0, 2 pi), ends > starts, an arc crossing 2 pi ends beyond it; [0, 2 pi] for the whole circle).
+ */
+function solveArcs(g: FrameGeometry, sinDec: number, cosDec: number, memo?: ArcMemo): number {
+  // Altitude range over a day: culminations at 90 - |lat - dec| and |lat + dec| - 90 (as sines).
+  const upMax = g.sinLat * sinDec + g.cosLat * cosDec;
+  const upMin = g.sinLat * sinDec - g.cosLat * cosDec;
+  if (upMax < g.sinBottom || upMin > g.sinTop) return 0;
+  let n = 0;
+  const k = g.cosLat * cosDec;
+  if (k > 1e-12) {
+    n = pushAltitudeCandidates(g, sinDec, k, g.sinBottom, n, 0);
+    n = pushAltitudeCandidates(g, sinDec, k, g.sinTop, n, 2);
+  }
+  const tanDec = sinDec / cosDec;
+  for (let e = 0; e < g.edges.length; e++) n = pushAzimuthCandidates(cosDec, tanDec, g.edges[e]!, n, 4 + 2 * e);
+  if (n === 0) {
+    if (!insideAtHourAngle(g, sinDec, cosDec, 0)) return 0;
+    arcBuffer[0] = 0;
+    arcBuffer[1] = TWO_PI;
+    return 2;
+  }
+  // Insertion sort (n <= 8), carrying the ids; the signature is the sorted id sequence.
+  for (let i = 1; i < n; i++) {
+    const v = candidates[i]!;
+    const id = candidateIds[i]!;
+    let j = i - 1;
+    while (j >= 0 && candidates[j]! > v) {
+      candidates[j + 1] = candidates[j]!;
+      candidateIds[j + 1] = candidateIds[j]!;
+      j--;
+    }
+    candidates[j + 1] = v;
+    candidateIds[j + 1] = id;
+  }
+  let signature = n;
+  for (let i = 0; i < n; i++) signature = signature * 8 + candidateIds[i]!;
+  const reuse = memo !== undefined && memo.signature === signature;
+  let mask = reuse ? memo.insideMask : 0;
+  // Classify each arc [c_i, c_i+1] (the last one wraps to c_0 + 2 pi); join neighbours.
+  let m = 0;
+  const c0 = candidates[0]!;
+  for (let i = 0; i < n; i++) {
+    const a = candidates[i]!;
+    const b = i + 1 < n ? candidates[i + 1]! : c0 + TWO_PI;
+    let inside: boolean;
+    if (reuse) inside = (mask & (1 << i)) !== 0;
+    else {
+      inside = b > a && insideAtHourAngle(g, sinDec, cosDec, (a + b) / 2);
+      if (inside) mask |= 1 << i;
+    }
+    if (!inside || !(b > a)) continue;
+    if (m > 0 && arcBuffer[m - 1] === a) arcBuffer[m - 1] = b;
+    else {
+      arcBuffer[m++] = a;
+      arcBuffer[m++] = b;
+    }
+  }
+  if (memo) {
+    memo.signature = signature;
+    memo.insideMask = mask;
+  }
+  if (m === 2 && arcBuffer[0] === c0 && arcBuffer[1] === c0 + TWO_PI) {
+    arcBuffer[0] = 0;
+    arcBuffer[1] = TWO_PI;
+    return 2;
+  }
+  // An arc ending at c_0 + 2 pi continues into the first arc when that one starts at c_0.
+  if (m >= 4 && arcBuffer[0] === c0 && arcBuffer[m - 1] === c0 + TWO_PI) {
+    const end = arcBuffer[1]! + TWO_PI;
+    for (let i = 2; i < m; i++) arcBuffer[i - 2] = arcBuffer[i]!;
+    m -= 2;
+    arcBuffer[m - 1] = end;
+  }
+  return m;
+}
 
 /**
  * Hour-angle arcs inside the frame for a fixed declination.
@@ -120,53 +263,8 @@ const candidates: number[] = [];
  * @returns Flat arcs [start, end, ...], starts in [0, 2 pi), ends > starts (an arc crossing
  *   2 pi ends beyond it); [0, 2 pi] for the whole circle; [] when never inside.
  */
-export function hourAngleArcs(g: FrameGeometry, sinDec: number, cosDec: number): number[] {
-  candidates.length = 0;
-  const k = g.cosLat * cosDec;
-  if (k > 1e-12) {
-    for (const s of [g.sinBottom, g.sinTop]) {
-      if (s <= -1 || s >= 1) continue;
-      const c = (s - g.sinLat * sinDec) / k;
-      if (c > -1 && c < 1) {
-        const h = Math.acos(c);
-        candidates.push(h, TWO_PI - h);
-      }
-    }
-  }
-  for (const e of g.edges) {
-    const p = -cosDec * e.cos;
-    const q = g.sinLat * cosDec * e.sin;
-    const s = g.cosLat * sinDec * e.sin;
-    const r = Math.hypot(p, q);
-    if (r > 1e-12 && Math.abs(s) < r) {
-      const theta = Math.atan2(p, q);
-      const d = Math.acos(s / r);
-      for (const h of [theta + d, theta - d]) candidates.push(((h % TWO_PI) + TWO_PI) % TWO_PI);
-    }
-  }
-  if (candidates.length === 0) return insideAtHourAngle(g, sinDec, cosDec, 0) ? [0, TWO_PI] : [];
-  candidates.sort((a, b) => a - b);
-  const arcs: number[] = [];
-  const n = candidates.length;
-  // Classify each arc [c_i, c_i+1] (the last one wraps to c_0 + 2 pi); join neighbours.
-  for (let i = 0; i < n; i++) {
-    const a = candidates[i]!;
-    const b = i + 1 < n ? candidates[i + 1]! : candidates[0]! + TWO_PI;
-    if (!(b > a) || !insideAtHourAngle(g, sinDec, cosDec, (a + b) / 2)) continue;
-    const m = arcs.length;
-    if (m > 0 && arcs[m - 1] === a) arcs[m - 1] = b;
-    else arcs.push(a, b);
-  }
-  const m = arcs.length;
-  const c0 = candidates[0]!;
-  if (m === 2 && arcs[0] === c0 && arcs[1] === c0 + TWO_PI) return [0, TWO_PI];
-  // An arc ending at c_0 + 2 pi continues into the first arc when that one starts at c_0.
-  if (m >= 4 && arcs[0] === c0 && arcs[m - 1] === c0 + TWO_PI) {
-    const end = arcs[1]! + TWO_PI;
-    arcs.splice(0, 2);
-    arcs[arcs.length - 1] = end;
-  }
-  return arcs;
+export function hourAngleArcs(g: FrameGeometry, sinDec: number, cosDec: number, memo?: ArcMemo): number[] {
+  return Array.from(arcBuffer.subarray(0, solveArcs(g, sinDec, cosDec, memo)));
 }
 
 /** Interpolated apparent RA/Dec of a target and its hour angle. */
@@ -198,6 +296,13 @@ export class TargetTrack {
     this.ra = Math.atan2(y, x);
   }
 
+  /** Updates only the declination (sinDec, cosDec) for time t (UT days). */
+  declinationAt(t: number): void {
+    directionAt(this.nodes, this.directions, t, this.dir);
+    this.sinDec = this.dir[2]!;
+    this.cosDec = Math.hypot(this.dir[0]!, this.dir[1]!);
+  }
+
   /** Unwrapped local apparent sidereal angle at t, rad. */
   localSidereal(t: number): number {
     return earthRotationUnwrappedRad(t) + siderealOffsetDeg(t) * DEG + this.lonRad;
@@ -219,7 +324,12 @@ export class TargetTrack {
  */
 export function framePassageIntervals(g: FrameGeometry, track: TargetTrack, from: number, to: number, only?: FlatIntervals): FlatIntervals {
   const out: FlatIntervals = [];
+  const memo = newArcMemo();
   let ptr = 0;
+  // Hour angle and RA at the end of the previous solved day, reused when days follow each other.
+  let lastT = Number.NaN;
+  let lastH = 0;
+  let lastRa = 0;
   for (let tA = from; tA < to; ) {
     const tB = Math.min(tA + SIDEREAL_DAY_DAYS, to);
     if (only) {
@@ -230,25 +340,37 @@ export function framePassageIntervals(g: FrameGeometry, track: TargetTrack, from
         continue;
       }
     }
-    const hA = track.hourAngle(tA);
-    const raA = track.ra;
+    let hA: number;
+    let raA: number;
+    if (tA === lastT) {
+      hA = lastH;
+      raA = lastRa;
+    } else {
+      hA = track.hourAngle(tA);
+      raA = track.ra;
+    }
     const thetaB = track.localSidereal(tB);
     track.at(tB);
     let dRa = track.ra - raA;
     if (dRa > Math.PI) dRa -= TWO_PI;
     else if (dRa < -Math.PI) dRa += TWO_PI;
     const hB = thetaB - (raA + dRa);
-    track.at((tA + tB) / 2);
-    const arcs = hourAngleArcs(g, track.sinDec, track.cosDec);
-    const scale = (tB - tA) / (hB - hA);
-    const mFirst = Math.floor(hA / TWO_PI) - 1;
-    const mLast = Math.floor(hB / TWO_PI);
-    for (let m = mFirst; m <= mLast; m++) {
-      const shift = m * TWO_PI;
-      for (let i = 0; i < arcs.length; i += 2) {
-        const lo = Math.max(hA, arcs[i]! + shift);
-        const hi = Math.min(hB, arcs[i + 1]! + shift);
-        if (hi > lo) appendMerging(out, tA + (lo - hA) * scale, tA + (hi - hA) * scale, 1e-9);
+    lastT = tB;
+    lastH = hB;
+    lastRa = raA + dRa;
+    track.declinationAt((tA + tB) / 2);
+    const count = solveArcs(g, track.sinDec, track.cosDec, memo);
+    if (count > 0) {
+      const scale = (tB - tA) / (hB - hA);
+      const mFirst = Math.floor(hA / TWO_PI) - 1;
+      const mLast = Math.floor(hB / TWO_PI);
+      for (let m = mFirst; m <= mLast; m++) {
+        const shift = m * TWO_PI;
+        for (let i = 0; i < count; i += 2) {
+          const lo = Math.max(hA, arcBuffer[i]! + shift);
+          const hi = Math.min(hB, arcBuffer[i + 1]! + shift);
+          if (hi > lo) appendMerging(out, tA + (lo - hA) * scale, tA + (hi - hA) * scale, 1e-9);
+        }
       }
     }
     tA = tB;

@@ -55,8 +55,8 @@ export function centringFromOffsets(u: number, v: number): number {
  * @throws RangeError on NaN input.
  */
 export function lineupScore(s: ScoreInputs): number {
-  for (const v of [s.centring, s.durationMin, s.sunAltitudeDeg, s.moonAltitudeDeg, s.moonIllumination]) {
-    if (!Number.isFinite(v)) throw new RangeError('score inputs must be finite numbers');
+  if (!(Number.isFinite(s.centring) && Number.isFinite(s.durationMin) && Number.isFinite(s.sunAltitudeDeg) && Number.isFinite(s.moonAltitudeDeg) && Number.isFinite(s.moonIllumination))) {
+    throw new RangeError('score inputs must be finite numbers');
   }
   const c = Math.min(1, Math.max(0, s.centring));
   const d = 1 - Math.exp(-Math.max(0, s.durationMin) / SCORE_DURATION_SCALE_MIN);

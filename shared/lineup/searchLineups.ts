@@ -11,7 +11,7 @@ import type { EquatorialJ2000, Frame, ObserverSite } from '../schemas/geometry';
 import { placeNodes, targetNodeDirections } from './apparentPlace';
 import { resolveConditions, sameMoonCondition, type LineupConditions, type ResolvedConditions } from './conditions';
 import { darkIntervals, type DarkWindowSet } from './darkWindows';
-import { checkFrame, frameGeometry, framePassageIntervals, TargetTrack, type FrameGeometry } from './framePassage';
+import { checkFrame, frameGeometry, framePassageIntervals, hourAngleArcs, TargetTrack, type FrameGeometry } from './framePassage';
 import { appendMerging, intersectIntervals, type FlatIntervals } from './intervals';
 import { apparentAltitudeDeg } from './refraction';
 import { minimizeBrent } from './roots';
@@ -171,19 +171,100 @@ export function searchLineups(
     const track = new TargetTrack(nodes, targetNodeDirections(nodes, list[ti]!), sky.lonRad);
     const passages = framePassageIntervals(g, track, from, to, dark);
     const pieces = intersectIntervals(passages, dark);
+    const peaks = new PeakFinder(g, centring);
     for (let i = 0; i < pieces.length; i += 2) {
       const s = pieces[i]!;
       const e = pieces[i + 1]!;
       if (e - s < minDays) continue;
-      lineups.push(describeLineup(ti, s, e, track, centring, sky));
+      lineups.push(describeLineup(ti, s, e, track, centring, peaks, sky));
     }
   }
   lineups.sort((a, b) => a.start.getTime() - b.start.getTime() || a.targetIndex - b.targetIndex);
   return lineups;
 }
 
+/** Samples of the coarse scan that guards the peak search against a second local maximum. */
+const PEAK_SCAN_SAMPLES = 16;
+/** Hour-angle tolerance of the peak, rad (about 3 s of time). */
+const PEAK_TOLERANCE_RAD = 2e-4;
+/** Declination change (as a change of its sine) within which a frame passage's peak is reused. */
+const PEAK_REUSE_SIN_DEC = 5e-6;
+
+/**
+ * Finds the hour angle of best centring within a lineup. A lineup that covers the peak of its whole
+ * frame passage takes that peak; the passage's peak is searched once (coarse scan, then Brent) and
+ * reused on later days while the declination has moved by less than 1 arcsec, which moves the peak
+ * by a fraction of a second. A lineup cut short by a dark-window edge before reaching that peak is
+ * searched on its own span.
+ */
+class PeakFinder {
+  private cachedSinDec = Number.NaN;
+  private arcStart = 0;
+  private arcEnd = 0;
+  private arcPeak = 0;
+
+  constructor(
+    private readonly g: FrameGeometry,
+    private readonly centring: Centring,
+  ) {}
+
+  private best(sinDec: number, cosDec: number, lo: number, hi: number): number {
+    const f = (h: number): number => -this.centring.at(sinDec, cosDec, h);
+    if (!(hi > lo)) return lo;
+    const step = (hi - lo) / (PEAK_SCAN_SAMPLES - 1);
+    let bestI = 0;
+    let bestV = Infinity;
+    for (let i = 0; i < PEAK_SCAN_SAMPLES; i++) {
+      const v = f(lo + i * step);
+      if (v < bestV) {
+        bestV = v;
+        bestI = i;
+      }
+    }
+    const a = lo + Math.max(0, bestI - 1) * step;
+    const b = lo + Math.min(PEAK_SCAN_SAMPLES - 1, bestI + 1) * step;
+    const h = minimizeBrent(f, a, b, PEAK_TOLERANCE_RAD);
+    return f(h) <= bestV ? h : lo + bestI * step;
+  }
+
+  /** Best hour angle in [hS, hE] (same branch as hS). */
+  find(sinDec: number, cosDec: number, hS: number, hE: number): number {
+    const base = TWO_PI * Math.floor(hS / TWO_PI);
+    const s = hS - base;
+    const e = hE - base;
+    if (!(Math.abs(sinDec - this.cachedSinDec) < PEAK_REUSE_SIN_DEC && this.locate(s, e) !== null)) {
+      // Solve the passage's arc at this declination and search its peak.
+      const arcs = hourAngleArcs(this.g, sinDec, cosDec);
+      let found = false;
+      for (let i = 0; i < arcs.length && !found; i += 2) {
+        this.arcStart = arcs[i]!;
+        this.arcEnd = arcs[i + 1]!;
+        found = this.locate(s, e) !== null;
+      }
+      if (!found) {
+        this.cachedSinDec = Number.NaN;
+        return this.best(sinDec, cosDec, hS, hE);
+      }
+      this.cachedSinDec = sinDec;
+      this.arcPeak = this.best(sinDec, cosDec, this.arcStart, this.arcEnd);
+    }
+    const k = this.locate(s, e)!;
+    const peak = this.arcPeak - k * TWO_PI + base;
+    return peak >= hS && peak <= hE ? peak : this.best(sinDec, cosDec, hS, hE);
+  }
+
+  /** Turns (0 or 1) to add to [s, e] to fall inside the cached arc, or null. */
+  private locate(s: number, e: number): number | null {
+    const slack = 1e-4;
+    for (let k = 0; k <= 1; k++) {
+      if (s + k * TWO_PI >= this.arcStart - slack && e + k * TWO_PI <= this.arcEnd + slack) return k;
+    }
+    return null;
+  }
+}
+
 /** Peak (best centring) and the sky there for the lineup [s, e] (UT days). */
-function describeLineup(targetIndex: number, s: number, e: number, track: TargetTrack, centring: Centring, sky: SiteSky): Lineup {
+function describeLineup(targetIndex: number, s: number, e: number, track: TargetTrack, centring: Centring, peaks: PeakFinder, sky: SiteSky): Lineup {
   const hS = track.hourAngle(s);
   const raS = track.ra;
   const thetaE = track.localSidereal(e);
@@ -191,27 +272,14 @@ function describeLineup(targetIndex: number, s: number, e: number, track: Target
   let dRa = track.ra - raS;
   dRa -= TWO_PI * Math.round(dRa / TWO_PI);
   const hE = thetaE - (raS + dRa);
-  track.at((s + e) / 2);
-  const sinDec = track.sinDec;
-  const cosDec = track.cosDec;
-  const negCentring = (h: number): number => -centring.at(sinDec, cosDec, h);
-  let hBest = minimizeBrent(negCentring, hS, hE, 2e-4);
-  let best = negCentring(hBest);
-  for (const h of [hS, hE]) {
-    const v = negCentring(h);
-    if (v < best) {
-      best = v;
-      hBest = h;
-    }
-  }
+  track.declinationAt((s + e) / 2);
+  const hBest = peaks.find(track.sinDec, track.cosDec, hS, hE);
   const tPeak = hE > hS ? s + ((hBest - hS) / (hE - hS)) * (e - s) : s;
   // Place and centring at the peak with the declination of that instant.
   const hPeak = track.hourAngle(tPeak);
   const centringAtPeak = centring.at(track.sinDec, track.cosDec, hPeak);
   const sunAltitudeDeg = sky.sunAltitudeDeg(tPeak);
-  const moonDown = sky.moonLimbSin(tPeak) < 0;
-  const moonAltitudeDeg = sky.moonAltitudeDeg(tPeak);
-  const moonIllumination = sky.moonIlluminatedFraction(tPeak);
+  const moon = sky.moonAt(tPeak);
   const durationMin = (e - s) * 1440;
   return {
     targetIndex,
@@ -223,8 +291,8 @@ function describeLineup(targetIndex: number, s: number, e: number, track: Target
     peakAltitudeDeg: centring.altitudeDeg,
     centring: centringAtPeak,
     sunAltitudeDeg,
-    moonAltitudeDeg,
-    moonIllumination,
-    score: lineupScore({ centring: centringAtPeak, durationMin, sunAltitudeDeg, moonDown, moonAltitudeDeg, moonIllumination }),
+    moonAltitudeDeg: moon.altitudeDeg,
+    moonIllumination: moon.illumination,
+    score: lineupScore({ centring: centringAtPeak, durationMin, sunAltitudeDeg, moonDown: moon.down, moonAltitudeDeg: moon.altitudeDeg, moonIllumination: moon.illumination }),
   };
 }

@@ -142,19 +142,35 @@ export class SiteSky {
     return alt + Math.asin(MOON_RADIUS_AU / this.lastDistanceAu) / DEG + HORIZON_REFRACTION_DEG;
   }
 
-  /** Moon's illuminated fraction, 0..1 (geocentric). @param ut - UT days since J2000. */
-  moonIlluminatedFraction(ut: number): number {
+  /**
+   * The Moon at one instant from a single table look-up: centre altitude (deg), whether it is down
+   * (as {@link SiteSky.moonLimbSin}) and its illuminated fraction.
+   * @param ut - UT days since J2000.
+   */
+  moonAt(ut: number): { altitudeDeg: number; down: boolean; illumination: number } {
+    const sinAlt = this.moonSinAltitude(ut);
+    const q = MOON_RADIUS_AU / this.lastDistanceAu;
+    const down = sinAlt + q * COS_HORIZON_REFRACTION + Math.sqrt(1 - q * q) * SIN_HORIZON_REFRACTION < 0;
+    return { altitudeDeg: Math.asin(sinAlt) / DEG, down, illumination: this.illuminationOfVec(ut) };
+  }
+
+  /** Illuminated fraction for the Moon vector already in `this.vec` at time ut. */
+  private illuminationOfVec(ut: number): number {
     const m = this.vec;
     const s = this.sunVec;
-    moonGeocentricOfDate(ut, m);
     sunGeometricOfDate(ut, s);
-    // Phase angle between Earth->Moon and Sun->Moon (= Moon - Sun) vectors.
     const hx = m[0]! - s[0]!;
     const hy = m[1]! - s[1]!;
     const hz = m[2]! - s[2]!;
     const dot = m[0]! * hx + m[1]! * hy + m[2]! * hz;
-    const cosPhase = dot / (Math.hypot(m[0]!, m[1]!, m[2]!) * Math.hypot(hx, hy, hz));
-    return (1 + cosPhase) / 2;
+    return (1 + dot / (Math.hypot(m[0]!, m[1]!, m[2]!) * Math.hypot(hx, hy, hz))) / 2;
+  }
+
+  /** Moon's illuminated fraction, 0..1 (geocentric). @param ut - UT days since J2000. */
+  moonIlluminatedFraction(ut: number): number {
+    moonGeocentricOfDate(ut, this.vec);
+    // Phase angle between the Earth->Moon and Sun->Moon (= Moon - Sun) vectors.
+    return this.illuminationOfVec(ut);
   }
 
   /** Geocentric hour angle of the Sun, rad (unreduced). @param ut - UT days since J2000. */
