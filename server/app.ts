@@ -13,6 +13,9 @@ import { sightlinesRouter } from './routes/sightlines';
 import { FieldNoteService } from './services/field-note-service';
 import { SightlineService } from './services/sightline-service';
 import { TideService } from './services/tide-service';
+import { DarkWindowCache } from './services/dark-window-cache';
+import { LineupService } from './services/lineup-service';
+import { lineupsRouter } from './routes/lineups';
 import { AuthService } from './services/auth-service';
 import { TokenService } from './services/token-service';
 import { UserService } from './services/user-service';
@@ -35,6 +38,7 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   const sightlines = new SightlineService();
   const notes = new FieldNoteService(sightlines);
   const tides = new TideService(sequelize, sightlines);
+  const lineups = new LineupService(new DarkWindowCache(), sightlines, tides);
 
   const app = express();
   app.disable('x-powered-by');
@@ -56,6 +60,7 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   api.use('/auth', authRouter({ config, auth, tokens }));
   api.use('/users', usersRouter({ users }));
   api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides }));
+  api.use('/lineups', lineupsRouter({ lineups }));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -12,7 +12,7 @@ export const up: Migration['up'] = async ({ queryInterface, sequelize }) => {
     year: { type: DataTypes.INTEGER, allowNull: false },
     conditions_key: { type: DataTypes.STRING(64), allowNull: false },
     engine_version: { type: DataTypes.INTEGER, allowNull: false },
-    windows: { type: DataTypes.JSONB, allowNull: false },
+    window_set: { type: DataTypes.JSONB, allowNull: false },
     created_at: { type: DataTypes.DATE, allowNull: false, defaultValue: sequelize.literal('now()') },
   });
   await queryInterface.addConstraint('dark_window_cache', {

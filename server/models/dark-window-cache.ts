@@ -1,13 +1,14 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+import type { DarkWindowSet } from '../../shared/lineup';
 
-/** One site-year of dark windows, as flat [start, end, start, end, ...] Unix milliseconds. */
+/** One site-year of dark windows for one set of sky conditions, as the engine computed them. */
 export class DarkWindowCacheModel extends Model<InferAttributes<DarkWindowCacheModel>, InferCreationAttributes<DarkWindowCacheModel>> {
   declare id: CreationOptional<number>;
   declare siteKey: string;
   declare year: number;
   declare conditionsKey: string;
   declare engineVersion: number;
-  declare windows: number[];
+  declare windowSet: DarkWindowSet;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -19,7 +20,7 @@ export function initDarkWindowCacheModel(sequelize: Sequelize): typeof DarkWindo
       year: { type: DataTypes.INTEGER, allowNull: false },
       conditionsKey: { type: DataTypes.STRING(64), allowNull: false },
       engineVersion: { type: DataTypes.INTEGER, allowNull: false },
-      windows: { type: DataTypes.JSONB, allowNull: false },
+      windowSet: { type: DataTypes.JSONB, allowNull: false },
       createdAt: DataTypes.DATE,
     },
     { sequelize, tableName: 'dark_window_cache', modelName: 'DarkWindowCache', updatedAt: false },

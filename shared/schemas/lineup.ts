@@ -48,6 +48,8 @@ export const searchVantageSchema = z.object({
 });
 
 export const lineupSearchRequestSchema = z.object({
+  /** A saved sightline: its geometry is used unless frame or sightline is given, and lineups get a tide status. */
+  sightlineId: z.uuid({ error: 'Not a valid sightline id' }).optional(),
   frame: frameSchema.optional(),
   sightline: z.object({
     vantage: vantageSchema,
@@ -60,8 +62,10 @@ export const lineupSearchRequestSchema = z.object({
   to: isoInstantSchema,
   conditions: lineupConditionsSchema.default({ sunMaxAltDeg: -18, moon: 'down', minDurationMin: 5 }),
 }).superRefine((r, ctx) => {
-  if (!r.frame && !r.sightline) ctx.addIssue({ code: 'custom', path: ['frame'], message: 'Give a frame or a sightline' });
+  if (!r.frame && !r.sightline && !r.sightlineId) ctx.addIssue({ code: 'custom', path: ['frame'], message: 'Give a frame or a sightline' });
   if (r.frame && !r.sightline && !r.vantage) ctx.addIssue({ code: 'custom', path: ['vantage'], message: 'A typed frame needs the vantage position' });
+  // Dates that failed their own check are reported there.
+  if (!(r.from instanceof Date) || !(r.to instanceof Date)) return;
   if (r.to.getTime() <= r.from.getTime()) ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end must be after the start' });
   else if (r.to.getTime() - r.from.getTime() > MAX_SEARCH_RANGE_DAYS * MS_PER_DAY) {
     ctx.addIssue({ code: 'custom', path: ['to'], message: 'Search at most 10 years at once' });
@@ -82,6 +86,10 @@ export const lineupSchema = z.object({
   moonAltitudeDeg: z.number(),
   moonIllumination: z.number(),
   score: z.number().min(0).max(1),
+  /** With a saved sightline that has a tide rule: can the spot be reached for the whole lineup? */
+  tideStatus: z.enum(['reachable', 'cut-off', 'unknown']).optional(),
+  /** When the tide cuts the spot off after the lineup starts (ISO UTC), if it does. */
+  tideCutOffAt: z.string().nullable().optional(),
 });
 export type Lineup = z.infer<typeof lineupSchema>;
 

@@ -1,0 +1,95 @@
+import { frameFromSightline } from '../../shared/geo';
+import { searchLineups } from '../../shared/lineup';
+import type { Frame, ObserverSite } from '../../shared/schemas/geometry';
+import type { Lineup, LineupSearchRequest, LineupSearchResponse, TargetRef } from '../../shared/schemas/lineup';
+import { findTarget } from '../../shared/sky/catalogue';
+import { timeZoneForSite } from '../../shared/sky/timezone';
+import { lineupTideStatusFromAccess, tideAccess, type TideAccess } from '../../shared/tide';
+import { AppError } from '../errors';
+import type { UserModel } from '../models/user';
+import type { DarkWindowCache } from './dark-window-cache';
+import type { SightlineService } from './sightline-service';
+import type { TideService } from './tide-service';
+
+const DAY_MS = 86_400_000;
+
+interface ResolvedTarget { id?: string; name: string; raHours: number; decDeg: number }
+
+function resolveTarget(ref: TargetRef): ResolvedTarget {
+  if ('id' in ref) {
+    const t = findTarget(ref.id);
+    if (!t) throw new AppError('validation', 'Unknown target', { 'target.id': 'Unknown target id' });
+    return { id: t.id, name: t.name, raHours: t.raHours, decDeg: t.decDeg };
+  }
+  return { name: ref.name, raHours: ref.raHours, decDeg: ref.decDeg };
+}
+
+/** The lineup search use case: geometry from the request or a saved sightline, cached dark windows, tide status. */
+export class LineupService {
+  constructor(
+    private readonly darkWindows: DarkWindowCache,
+    private readonly sightlines: SightlineService,
+    private readonly tides: TideService,
+  ) {}
+
+  async search(user: UserModel, request: LineupSearchRequest): Promise<LineupSearchResponse> {
+    const started = performance.now();
+    const saved = request.sightlineId ? (await this.sightlines.get(user, request.sightlineId, 'read')).toPublic() : undefined;
+    const geometry = request.sightline ?? (saved && !request.frame ? { vantage: saved.vantage, landmark: saved.landmark, bandHeightDeg: saved.bandHeightDeg } : undefined);
+
+    let frame: Frame;
+    let site: ObserverSite;
+    if (request.frame) {
+      frame = request.frame;
+      const v = request.vantage ?? (saved ? { lat: saved.vantage.lat, lon: saved.vantage.lon, elevationM: saved.vantage.elevationM + saved.vantage.cameraHeightM } : undefined);
+      if (!v) throw new AppError('validation', 'A typed frame needs the vantage position', { vantage: 'Give the vantage position' });
+      site = v;
+    } else if (geometry) {
+      frame = frameFromSightline(geometry.vantage, geometry.landmark, { bandHeightDeg: geometry.bandHeightDeg });
+      site = { lat: geometry.vantage.lat, lon: geometry.vantage.lon, elevationM: geometry.vantage.elevationM + geometry.vantage.cameraHeightM };
+    } else {
+      throw new AppError('validation', 'Give a frame or a sightline', { frame: 'Give a frame or a sightline' });
+    }
+
+    const target = resolveTarget(request.target);
+    const { conditions } = request;
+    let found;
+    try {
+      const sets = await this.darkWindows.setsFor(site, request.from, request.to, conditions);
+      found = searchLineups(frame, site, target, request.from, request.to, conditions, { darkWindows: sets });
+    } catch (error) {
+      if (error instanceof RangeError) throw new AppError('validation', error.message);
+      throw error;
+    }
+
+    let access: TideAccess | undefined;
+    if (saved?.tideRule) {
+      const events = await this.tides.eventsUnchecked(saved.id, { from: new Date(request.from.getTime() - DAY_MS), to: new Date(request.to.getTime() + DAY_MS) });
+      access = tideAccess(saved.tideRule, events);
+    }
+
+    const lineups: Lineup[] = found.map((l) => {
+      const tide = access ? lineupTideStatusFromAccess(access, l.start, l.end) : undefined;
+      return {
+        start: l.start.toISOString(),
+        end: l.end.toISOString(),
+        peak: l.peak.toISOString(),
+        durationMin: l.durationMin,
+        peakAzimuthDeg: l.peakAzimuthDeg,
+        peakAltitudeDeg: l.peakAltitudeDeg,
+        sunAltitudeDeg: l.sunAltitudeDeg,
+        moonAltitudeDeg: l.moonAltitudeDeg,
+        moonIllumination: l.moonIllumination,
+        score: l.score,
+        ...(tide ? { tideStatus: tide.status, tideCutOffAt: tide.cutOffAt?.toISOString() ?? null } : {}),
+      };
+    });
+    return {
+      lineups,
+      timezone: saved?.timezone ?? timeZoneForSite(site.lat, site.lon),
+      target,
+      frame,
+      computeMs: Math.round((performance.now() - started) * 10) / 10,
+    };
+  }
+}
