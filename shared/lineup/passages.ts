@@ -35,6 +35,6 @@ export function computeFramePassages(frame: Frame, site: ObserverSite, target: E
   const track = new TargetTrack(nodes, targetNodeDirections(nodes, target), (site.lon * Math.PI) / 180);
   const flat = framePassageIntervals(frameGeometry(frame, site.lat, site.lon), track, from, to);
   const out: TimeInterval[] = [];
-  for (let i = 0; i < flat.length; i += 2) out.push({ start: new Date(utDaysToUnixMs(flat[i]!)), end: new Date(utDaysToUnixMs(flat[i + 1]!)) });
+  for (let i = 0; i < flat.length; i += 2) out.push({ start: new Date(Math.round(utDaysToUnixMs(flat[i]!))), end: new Date(Math.round(utDaysToUnixMs(flat[i + 1]!))) });
   return out;
 }

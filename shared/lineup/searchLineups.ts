@@ -283,9 +283,10 @@ function describeLineup(targetIndex: number, s: number, e: number, track: Target
   const durationMin = (e - s) * 1440;
   return {
     targetIndex,
-    start: new Date(utDaysToUnixMs(s)),
-    end: new Date(utDaysToUnixMs(e)),
-    peak: new Date(utDaysToUnixMs(tPeak)),
+    // Rounded to the millisecond (a Date would truncate), so range-clipped ends equal the range.
+    start: new Date(Math.round(utDaysToUnixMs(s))),
+    end: new Date(Math.round(utDaysToUnixMs(e))),
+    peak: new Date(Math.round(utDaysToUnixMs(tPeak))),
     durationMin,
     peakAzimuthDeg: centring.azimuthDeg,
     peakAltitudeDeg: centring.altitudeDeg,
