@@ -7,12 +7,14 @@
  * - altitude band edge h: cos H = (sin h - sin(lat) sin(dec)) / (cos(lat) cos(dec));
  * - azimuth edge A (the vertical plane through A): P sin H + Q cos H = S with
  *   P = -cos(dec) cos A, Q = sin(lat) cos(dec) sin A, S = cos(lat) sin(dec) sin A;
- * then each arc between successive roots is classified by testing its midpoint. Tangencies (a path
- * grazing a frame edge) give a zero-width arc and are classified the same way. The hour-angle arcs
- * are mapped to UTC with the hour angle H(t) = local apparent sidereal angle - RA(t), linear to
- * 1e-9 rad within a day. The declination is refreshed every day from apparent places interpolated
- * between exact nodes (apparentPlace.ts), so a search over ten years stays within a fraction of a
- * second of the exact boundaries.
+ * then each arc between successive roots is classified by testing its midpoint (a target's
+ * classification is reused from one day to the next while the order of its roots is unchanged:
+ * arcs can only change class when roots appear, vanish or cross). Tangencies (a path grazing a
+ * frame edge) give a zero-width arc and are classified the same way. The hour-angle arcs are
+ * mapped to UTC with the hour angle H(t) = local apparent sidereal angle - RA(t), linear within a
+ * day to about 1e-7 rad (a millisecond). The declination is refreshed every day from apparent
+ * places interpolated between exact nodes (apparentPlace.ts), so a search over ten years stays
+ * within a tenth of a second of the exact boundaries (tests compare with a brute-force oracle).
  *
  * Definitions (same as the brute-force oracle in tests/unit/lineup): the target's apparent altitude
  * is its geometric altitude plus astronomy-engine's `Refraction('normal')`; its azimuth is true,
