@@ -16,6 +16,7 @@ import { TideService } from './services/tide-service';
 import { DarkWindowCache } from './services/dark-window-cache';
 import { LineupService } from './services/lineup-service';
 import { lineupsRouter } from './routes/lineups';
+import { EnginePool } from './workers/engine-pool';
 import { AuthService } from './services/auth-service';
 import { TokenService } from './services/token-service';
 import { UserService } from './services/user-service';
@@ -38,7 +39,8 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   const sightlines = new SightlineService();
   const notes = new FieldNoteService(sightlines);
   const tides = new TideService(sequelize, sightlines);
-  const lineups = new LineupService(new DarkWindowCache(), sightlines, tides);
+  const pool = new EnginePool();
+  const lineups = new LineupService(new DarkWindowCache(pool), sightlines, tides, pool);
 
   const app = express();
   app.disable('x-powered-by');
@@ -72,5 +74,6 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   }
 
   app.use(errorHandler);
+  app.locals.shutdown = () => pool.close();
   return app;
 }

@@ -37,6 +37,7 @@ export async function startServer({ config, databaseUrl, jwtSecret, clientDir }:
     close() {
       closing ??= (async () => {
         await new Promise<void>((r) => { server.close(() => r()); server.closeAllConnections(); });
+        await (app.locals.shutdown as (() => Promise<void>) | undefined)?.();
         await database.close();
       })();
       return closing;

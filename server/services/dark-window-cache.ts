@@ -1,6 +1,7 @@
-import { computeDarkWindows, type DarkWindowSet, type MoonCondition } from '../../shared/lineup';
+import type { DarkWindowSet, MoonCondition } from '../../shared/lineup';
 import type { ObserverSite } from '../../shared/schemas/geometry';
 import { DarkWindowCacheModel } from '../models/dark-window-cache';
+import type { EnginePool } from '../workers/engine-pool';
 
 /** Bump when the engine's dark windows change, so old cached rows are no longer used. */
 export const DARK_WINDOW_ENGINE_VERSION = 1;
@@ -31,6 +32,9 @@ function conditionsKey(c: SkyConditionsKey): string {
 export class DarkWindowCache {
   private readonly memory = new Map<string, DarkWindowSet>();
 
+  /** @param pool - Where uncached years are computed, off the event loop. */
+  constructor(private readonly pool: EnginePool) {}
+
   /** The sets covering [from, to], one per UTC year, computed and stored where missing. */
   async setsFor(site: ObserverSite, from: Date, to: Date, conditions: SkyConditionsKey): Promise<DarkWindowSet[]> {
     const grid = cachedSite(site);
@@ -52,7 +56,7 @@ export class DarkWindowCache {
     const row = await DarkWindowCacheModel.findOne({ where });
     let set = row?.windowSet;
     if (!set) {
-      set = computeDarkWindows(grid, new Date(Date.UTC(year, 0, 1)), new Date(Date.UTC(year + 1, 0, 1)), conditions);
+      set = await this.pool.run({ kind: 'darkWindows', site: grid, year, conditions: { sunMaxAltDeg: conditions.sunMaxAltDeg, moon: conditions.moon } });
       // Two requests may compute the same year at once: the unique key keeps one row.
       await DarkWindowCacheModel.bulkCreate([{ ...where, windowSet: set }], { ignoreDuplicates: true });
     }

@@ -1,5 +1,4 @@
 import { frameFromSightline } from '../../shared/geo';
-import { searchLineups } from '../../shared/lineup';
 import type { Frame, ObserverSite } from '../../shared/schemas/geometry';
 import type { Lineup, LineupSearchRequest, LineupSearchResponse, TargetRef } from '../../shared/schemas/lineup';
 import { findTarget } from '../../shared/sky/catalogue';
@@ -10,8 +9,12 @@ import type { UserModel } from '../models/user';
 import type { DarkWindowCache } from './dark-window-cache';
 import type { SightlineService } from './sightline-service';
 import type { TideService } from './tide-service';
+import type { EnginePool } from '../workers/engine-pool';
+import { runEngineTask, type EngineTask } from '../workers/engine-tasks';
 
 const DAY_MS = 86_400_000;
+/** Searches up to this long run inline (a few ms with cached dark windows); longer ones go to the pool. */
+const INLINE_SEARCH_MAX_DAYS = 400;
 
 interface ResolvedTarget { id?: string; name: string; raHours: number; decDeg: number }
 
@@ -30,6 +33,7 @@ export class LineupService {
     private readonly darkWindows: DarkWindowCache,
     private readonly sightlines: SightlineService,
     private readonly tides: TideService,
+    private readonly pool: EnginePool,
   ) {}
 
   async search(user: UserModel, request: LineupSearchRequest): Promise<LineupSearchResponse> {
@@ -56,7 +60,9 @@ export class LineupService {
     let found;
     try {
       const sets = await this.darkWindows.setsFor(site, request.from, request.to, conditions);
-      found = searchLineups(frame, site, target, request.from, request.to, conditions, { darkWindows: sets });
+      const task: EngineTask = { kind: 'search', frame, site, target: { raHours: target.raHours, decDeg: target.decDeg }, from: request.from, to: request.to, conditions, darkWindows: sets };
+      const inline = request.to.getTime() - request.from.getTime() <= INLINE_SEARCH_MAX_DAYS * DAY_MS;
+      found = inline ? runEngineTask(task) : await this.pool.run(task);
     } catch (error) {
       if (error instanceof RangeError) throw new AppError('validation', error.message);
       throw error;

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { lineupSearchResponseSchema } from '../../shared/schemas/lineup';
 import { targetHorizontal } from '../../shared/sky/positions';
+import { searchLineups } from '../../shared/lineup';
 import { lineupTideStatus, parseTideTimes } from '../../shared/tide';
 import { demoTideLines } from '../../server/seeders/demo-tides';
 import { createTestContext, createUser, signedInAgent, type TestContext } from './helpers';
@@ -82,6 +83,19 @@ describe('POST /api/lineups/search', () => {
     const again = await agent.post('/api/lineups/search').send({ ...body, target: { id: 'm42' } });
     expect(again.status).toBe(200);
     expect(await count()).toBe(afterFirst);
+  });
+
+  it('runs a multi-year search on the worker pool with the same result as the engine called directly', async () => {
+    const body = { frame: wideFrame, vantage: southSite, target: { id: 'galactic-centre' }, from: '2027-01-01', to: '2029-12-31' };
+    const res = await agent.post('/api/lineups/search').send(body);
+    expect(res.status).toBe(200);
+    const direct = searchLineups(wideFrame, southSite, { raHours: res.body.target.raHours, decDeg: res.body.target.decDeg }, new Date('2027-01-01T00:00:00Z'), new Date('2029-12-31T00:00:00Z'));
+    expect(res.body.lineups.length).toBe(direct.length);
+    expect(res.body.lineups.length).toBeGreaterThan(200);
+    // Cached dark windows are computed on a 0.01 deg grid, so boundaries agree to seconds, not exactly.
+    res.body.lineups.forEach((l: { start: string }, i: number) => {
+      expect(Math.abs(Date.parse(l.start) - direct[i]!.start.getTime())).toBeLessThan(60_000);
+    });
   });
 
   it.each([
