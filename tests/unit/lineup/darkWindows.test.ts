@@ -90,6 +90,14 @@ describe('dark windows against a dense scan of exact altitudes', () => {
     expect(matchWindows(set, scan)).toBeLessThan(0.05);
   });
 
+  it('lets the Moon alone decide at the South Pole in midwinter (declination extrema only)', () => {
+    const site = { lat: -90, lon: 0, elevationM: 2835 };
+    const set = computeDarkWindows(site, new Date('2027-05-20T00:00:00Z'), new Date('2027-07-10T00:00:00Z'), { moon: 'down' });
+    const scan = denseScan(site, { sunMaxAltDeg: -18, moon: 'down' }, '2027-05-20T00:00:00Z', '2027-07-10T00:00:00Z', 120);
+    expect(set.windows.length).toBeGreaterThanOrEqual(2);
+    expect(matchWindows(set, scan)).toBeLessThan(0.05);
+  });
+
   it('handles the Sun at 82 N in February by the polar method, as nights shrink to nothing', () => {
     // At 82 N the Sun's lower culmination is at dec - 8 deg: below -18 deg only while dec < -10 deg.
     const site = { lat: 82.0, lon: -62.3, elevationM: 0 };
