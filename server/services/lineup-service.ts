@@ -15,6 +15,8 @@ import { runEngineTask, type EngineTask } from '../workers/engine-tasks';
 const DAY_MS = 86_400_000;
 /** Searches up to this long run inline (a few ms with cached dark windows); longer ones go to the pool. */
 const INLINE_SEARCH_MAX_DAYS = 400;
+/** Search results kept in memory for repeated identical searches (not for saved sightlines, whose tide data may change). */
+const RESULT_CACHE_ENTRIES = 300;
 
 interface ResolvedTarget { id?: string; name: string; raHours: number; decDeg: number }
 
@@ -36,8 +38,18 @@ export class LineupService {
     private readonly pool: EnginePool,
   ) {}
 
+  private readonly results = new Map<string, LineupSearchResponse>();
+
+  private remember(key: string, response: LineupSearchResponse): void {
+    if (this.results.size >= RESULT_CACHE_ENTRIES) this.results.delete(this.results.keys().next().value!);
+    this.results.set(key, response);
+  }
+
   async search(user: UserModel, request: LineupSearchRequest): Promise<LineupSearchResponse> {
     const started = performance.now();
+    const cacheKey = request.sightlineId ? undefined : JSON.stringify(request);
+    const cached = cacheKey ? this.results.get(cacheKey) : undefined;
+    if (cached) return { ...cached, computeMs: Math.round((performance.now() - started) * 10) / 10 };
     const saved = request.sightlineId ? (await this.sightlines.get(user, request.sightlineId, 'read')).toPublic() : undefined;
     const geometry = request.sightline ?? (saved && !request.frame ? { vantage: saved.vantage, landmark: saved.landmark, bandHeightDeg: saved.bandHeightDeg } : undefined);
 
@@ -90,12 +102,14 @@ export class LineupService {
         ...(tide ? { tideStatus: tide.status, tideCutOffAt: tide.cutOffAt?.toISOString() ?? null } : {}),
       };
     });
-    return {
+    const response: LineupSearchResponse = {
       lineups,
       timezone: saved?.timezone ?? timeZoneForSite(site.lat, site.lon),
       target,
       frame,
       computeMs: Math.round((performance.now() - started) * 10) / 10,
     };
+    if (cacheKey) this.remember(cacheKey, response);
+    return response;
   }
 }
