@@ -185,17 +185,23 @@ export function searchLineups(
 
 /** Samples of the coarse scan that guards the peak search against a second local maximum. */
 const PEAK_SCAN_SAMPLES = 16;
+/** The same for a lineup cut short by a dark-window edge (a shorter span). */
+const PEAK_SCAN_SAMPLES_CLIPPED = 8;
 /** Hour-angle tolerance of the peak, rad (about 3 s of time). */
 const PEAK_TOLERANCE_RAD = 2e-4;
-/** Declination change (as a change of its sine) within which a frame passage's peak is reused. */
-const PEAK_REUSE_SIN_DEC = 5e-6;
+/**
+ * Declination change (as a change of its sine, about 6 arcsec) within which a frame passage's peak
+ * is reused: the peak moves with the declination at a rate of order one (rad per rad), so by well
+ * under a second of time; the declination drifts by at most 0.4 arcsec a day.
+ */
+const PEAK_REUSE_SIN_DEC = 3e-5;
 
 /**
  * Finds the hour angle of best centring within a lineup. A lineup that covers the peak of its whole
  * frame passage takes that peak; the passage's peak is searched once (coarse scan, then Brent) and
- * reused on later days while the declination has moved by less than 1 arcsec, which moves the peak
- * by a fraction of a second. A lineup cut short by a dark-window edge before reaching that peak is
- * searched on its own span.
+ * reused on later days while the declination has moved by less than about 6 arcsec, which moves the
+ * peak by a fraction of a second. A lineup cut short by a dark-window edge before reaching that peak
+ * is searched on its own span.
  */
 class PeakFinder {
   private cachedSinDec = Number.NaN;
@@ -208,13 +214,13 @@ class PeakFinder {
     private readonly centring: Centring,
   ) {}
 
-  private best(sinDec: number, cosDec: number, lo: number, hi: number): number {
+  private best(sinDec: number, cosDec: number, lo: number, hi: number, samples = PEAK_SCAN_SAMPLES): number {
     const f = (h: number): number => -this.centring.at(sinDec, cosDec, h);
     if (!(hi > lo)) return lo;
-    const step = (hi - lo) / (PEAK_SCAN_SAMPLES - 1);
+    const step = (hi - lo) / (samples - 1);
     let bestI = 0;
     let bestV = Infinity;
-    for (let i = 0; i < PEAK_SCAN_SAMPLES; i++) {
+    for (let i = 0; i < samples; i++) {
       const v = f(lo + i * step);
       if (v < bestV) {
         bestV = v;
@@ -222,7 +228,7 @@ class PeakFinder {
       }
     }
     const a = lo + Math.max(0, bestI - 1) * step;
-    const b = lo + Math.min(PEAK_SCAN_SAMPLES - 1, bestI + 1) * step;
+    const b = lo + Math.min(samples - 1, bestI + 1) * step;
     const h = minimizeBrent(f, a, b, PEAK_TOLERANCE_RAD);
     return f(h) <= bestV ? h : lo + bestI * step;
   }
@@ -250,7 +256,7 @@ class PeakFinder {
     }
     const k = this.locate(s, e)!;
     const peak = this.arcPeak - k * TWO_PI + base;
-    return peak >= hS && peak <= hE ? peak : this.best(sinDec, cosDec, hS, hE);
+    return peak >= hS && peak <= hE ? peak : this.best(sinDec, cosDec, hS, hE, PEAK_SCAN_SAMPLES_CLIPPED);
   }
 
   /** Turns (0 or 1) to add to [s, e] to fall inside the cached arc, or null. */
