@@ -2,6 +2,9 @@
  * One-dimensional solvers used by the event searches: a bracketed root (secant steps from a
  * guess, safeguarded by bisection, or the Illinois variant of regula falsi) and an extremum by
  * Newton's method on central differences, safeguarded by a bracket on the derivative's sign.
+ * Own code: each is a few dozen lines, and the event search needs what generic npm solvers do not
+ * offer (an extremum search that stops early once the sign of the extreme value is certain, a root
+ * search seeded with a model guess and slope).
  */
 
 /** Time tolerance for roots, days (about 0.01 s). */
