@@ -80,7 +80,8 @@ function darkFromSets(sets: readonly DarkWindowSet[], site: ObserverSite, c: Res
     if (set.sunMaxAltDeg !== c.sunMaxAltDeg || !sameMoonCondition(set.moon, c.moon)) {
       throw new RangeError('options.darkWindows were computed for other conditions');
     }
-    if (Math.abs(set.site.lat - site.lat) > DARK_WINDOW_SITE_TOLERANCE_DEG || Math.abs(set.site.lon - site.lon) > DARK_WINDOW_SITE_TOLERANCE_DEG) {
+    const dLon = Math.abs((((set.site.lon - site.lon) % 360) + 540) % 360 - 180);
+    if (Math.abs(set.site.lat - site.lat) > DARK_WINDOW_SITE_TOLERANCE_DEG || !(dLon <= DARK_WINDOW_SITE_TOLERANCE_DEG)) {
       throw new RangeError('options.darkWindows were computed for another site');
     }
     if (set.fromMs <= covered) covered = Math.max(covered, set.toMs);
