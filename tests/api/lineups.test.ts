@@ -5,6 +5,7 @@ import { targetHorizontal } from '../../shared/sky/positions';
 import { searchLineups } from '../../shared/lineup';
 import { lineupTideStatus, parseTideTimes } from '../../shared/tide';
 import { demoTideLines } from '../../server/seeders/demo-tides';
+import ical from 'node-ical';
 import { createTestContext, createUser, signedInAgent, type TestContext } from './helpers';
 
 let ctx: TestContext;
@@ -152,5 +153,44 @@ describe('lineups of a saved sightline with a tide rule', () => {
     // Another member cannot search on this sightline.
     const other = await signedInAgent(ctx.app, await createUser());
     expect((await other.post('/api/lineups/search').send({ sightlineId: id, target: { id: 'galactic-centre' }, from: '2027-06-01', to: '2027-06-15' })).status).toBe(404);
+  });
+});
+
+describe('POST /api/lineups/export', () => {
+  const body = { frame: wideFrame, vantage: southSite, target: { id: 'galactic-centre' }, from: '2027-06-01', to: '2027-06-20' };
+
+  it('gives an iCalendar file that an iCalendar parser reads back with one event per lineup', async () => {
+    const search = await agent.post('/api/lineups/search').send(body);
+    const res = await agent.post('/api/lineups/export?format=ics').send(body).buffer(true).parse((r, cb) => {
+      let text = ''; r.on('data', (c: Buffer) => { text += c.toString(); }); r.on('end', () => cb(null, text));
+    });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/calendar/);
+    expect(res.headers['content-disposition']).toMatch(/attachment; filename="?gnomon-galactic-centre-lineups\.ics"?/);
+    // node-ical, a general iCalendar parser from the registry, checks the file independently.
+    const parsed = ical.sync.parseICS(res.body as string);
+    const events = Object.values(parsed).filter((e) => e.type === 'VEVENT') as Array<{ start: Date; end: Date; summary: string }>;
+    expect(events).toHaveLength(search.body.lineups.length);
+    const starts = events.map((e) => e.start.toISOString()).sort();
+    expect(starts).toEqual(search.body.lineups.map((l: { start: string }) => l.start.replace(/\.\d{3}Z$/, '.000Z')).sort());
+    expect(events[0]!.summary).toMatch(/Galactic centre/i);
+  });
+
+  it('gives CSV with a header and one quoted-as-needed row per lineup, local times in the site zone', async () => {
+    const search = await agent.post('/api/lineups/search').send(body);
+    const res = await agent.post('/api/lineups/export?format=csv').send(body);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv/);
+    const lines = (res.text as string).trim().split('\r\n');
+    expect(lines[0]).toMatch(/^night,start_local,end_local,peak_local,timezone,/);
+    expect(lines).toHaveLength(search.body.lineups.length + 1);
+    expect(lines[1]).toContain('Australia/Sydney');
+    expect(lines[1]).toMatch(/AEST/);
+  });
+
+  it('refuses an unknown format', async () => {
+    const res = await agent.post('/api/lineups/export?format=pdf').send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.format).toBeTruthy();
   });
 });
