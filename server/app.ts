@@ -61,7 +61,7 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   api.get('/health', (_req, res) => { res.json({ ok: true }); });
   api.use('/auth', authRouter({ config, auth, tokens }));
   api.use('/users', usersRouter({ users }));
-  api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides }));
+  api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups }));
   api.use('/lineups', lineupsRouter({ lineups }));
   api.use(apiNotFound);
   app.use('/api', api);

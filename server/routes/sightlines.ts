@@ -7,21 +7,28 @@ import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { FieldNoteService } from '../services/field-note-service';
 import type { SightlineService } from '../services/sightline-service';
 import type { TideService } from '../services/tide-service';
+import type { LineupService } from '../services/lineup-service';
+import { catalogueTargetRefSchema } from '../../shared/schemas/lineup';
 
 const uuid = z.uuid({ error: 'Not a valid id' });
 const sightlineParams = z.object({ id: uuid });
 const noteParams = z.object({ id: uuid, noteId: uuid });
 const listQuery = z.object({ all: z.enum(['true', 'false']).optional() });
+const nextQuery = z.object({
+  target: catalogueTargetRefSchema.shape.id.optional(),
+  count: z.coerce.number().int().min(1).max(20).optional(),
+});
 const rangeQuery = z.object({ from: isoInstantSchema.optional(), to: isoInstantSchema.optional() });
 
 export interface SightlineRouterDeps {
   sightlines: SightlineService;
   notes: FieldNoteService;
   tides: TideService;
+  lineups: LineupService;
 }
 
 /** Sightlines and their field notes. */
-export function sightlinesRouter({ sightlines, notes, tides }: SightlineRouterDeps): Router {
+export function sightlinesRouter({ sightlines, notes, tides, lineups }: SightlineRouterDeps): Router {
   const router = Router();
   router.use(requireAuth);
 
@@ -70,6 +77,12 @@ export function sightlinesRouter({ sightlines, notes, tides }: SightlineRouterDe
     const { id, noteId } = parseOrThrow(noteParams, req.params);
     await notes.remove(req.user!, id, noteId);
     res.status(204).end();
+  });
+
+  router.get('/:id/next-lineups', async (req, res) => {
+    const { id } = parseOrThrow(sightlineParams, req.params);
+    const { target, count } = parseOrThrow(nextQuery, req.query);
+    res.json(await lineups.nextLineups(req.user!, id, { targetId: target, count }));
   });
 
   router.put('/:id/tide-rule', validateBody(tideRuleRequestSchema), async (req, res) => {

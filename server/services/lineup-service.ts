@@ -45,6 +45,27 @@ export class LineupService {
     this.results.set(key, response);
   }
 
+  /**
+   * The next good lineups of a saved sightline over the coming year: the first `count` with a
+   * score of at least `minScore` (default 0.3: centred enough, dark enough, long enough to be
+   * worth the drive), from now on.
+   */
+  async nextLineups(user: UserModel, sightlineId: string, options: { targetId?: string; count?: number; minScore?: number; now?: Date } = {}): Promise<LineupSearchResponse> {
+    const sightline = await this.sightlines.get(user, sightlineId, 'read');
+    const now = options.now ?? new Date();
+    // Whole hours, so that repeated calls within the hour share cached dark windows and results.
+    const from = new Date(Math.floor(now.getTime() / 3600_000) * 3600_000);
+    const result = await this.search(user, {
+      sightlineId,
+      target: { id: options.targetId ?? sightline.targetId },
+      from,
+      to: new Date(from.getTime() + 365 * DAY_MS),
+      conditions: { sunMaxAltDeg: -18, moon: 'down', minDurationMin: 5 },
+    });
+    const good = result.lineups.filter((l) => l.score >= (options.minScore ?? 0.3) && Date.parse(l.end) > now.getTime());
+    return { ...result, lineups: good.slice(0, options.count ?? 3) };
+  }
+
   async search(user: UserModel, request: LineupSearchRequest): Promise<LineupSearchResponse> {
     const started = performance.now();
     const cacheKey = request.sightlineId ? undefined : JSON.stringify(request);

@@ -194,3 +194,29 @@ describe('POST /api/lineups/export', () => {
     expect(res.body.error.fields.format).toBeTruthy();
   });
 });
+
+describe('GET /api/sightlines/:id/next-lineups', () => {
+  it('gives the next good lineups of a saved sightline, starting now, at most the count asked for', async () => {
+    const owner = await createUser();
+    const me = await signedInAgent(ctx.app, owner);
+    const created = await me.post('/api/sightlines').send({
+      name: 'Wide southern frame',
+      vantage: { lat: -35.0, lon: 149.0, elevationM: 5 },
+      landmark: { lat: -35.0031, lon: 148.9897, heightM: 40, widthM: 400 },
+      bandHeightDeg: 40,
+    });
+    const id = created.body.sightline.id as string;
+    const res = await me.get(`/api/sightlines/${id}/next-lineups?count=2`);
+    expect(res.status).toBe(200);
+    const { lineups } = lineupSearchResponseSchema.parse(res.body);
+    expect(lineups.length).toBeLessThanOrEqual(2);
+    expect(lineups.length).toBeGreaterThan(0); // the galactic centre sets into a west-south-west frame every year
+    for (const l of lineups) {
+      expect(Date.parse(l.end)).toBeGreaterThan(Date.now() - 60_000);
+      expect(l.score).toBeGreaterThanOrEqual(0.3);
+    }
+    expect((await me.get(`/api/sightlines/${id}/next-lineups?target=nope`)).status).toBe(400);
+    const other = await signedInAgent(ctx.app, await createUser());
+    expect((await other.get(`/api/sightlines/${id}/next-lineups`)).status).toBe(404);
+  });
+});
