@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import { linearScale, linearTicks, niceStep } from '../../../shared/chart';
+
+describe('linearScale', () => {
+  it('maps the domain ends onto the range ends and back, also with a reversed (SVG y) range', () => {
+    const y = linearScale([-20, 90], [300, 20]);
+    expect(y.map(-20)).toBe(300);
+    expect(y.map(90)).toBe(20);
+    // 0 deg is 20/110 of the way up from -20: 300 - 280 * 20 / 110 (computed).
+    expect(y.map(0)).toBeCloseTo(300 - (280 * 20) / 110, 12);
+    expect(y.invert(y.map(37.5))).toBeCloseTo(37.5, 12);
+  });
+
+  it('extrapolates linearly outside the domain', () => {
+    const x = linearScale([0, 10], [0, 100]);
+    expect(x.map(-1)).toBe(-10);
+    expect(x.map(11)).toBe(110);
+  });
+
+  it.each([
+    [[0, 0], [0, 1]],
+    [[0, Number.NaN], [0, 1]],
+    [[0, 1], [0, Number.POSITIVE_INFINITY]],
+  ] as const)('rejects domain %j with range %j', (domain, range) => {
+    expect(() => linearScale(domain, range)).toThrow(RangeError);
+  });
+});
+
+describe('niceStep and linearTicks', () => {
+  it.each([
+    // [min, max, maxTicks, step, ticks]: 1-2-5 steps (common practice for chart axes).
+    [-20, 90, 11, 10, [-20, -10, 0, 10, 20, 30, 40, 50, 60, 70, 80, 90]],
+    [-20, 90, 6, 20, [-20, 0, 20, 40, 60, 80]],
+    [0, 1, 4, 0.5, [0, 0.5, 1]],
+    [0.1, 0.7, 6, 0.1, [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7]],
+    [3, 97, 4, 50, [50]],
+  ])('[%s, %s] in at most %s intervals: step %s, ticks %j', (min, max, n, step, ticks) => {
+    expect(niceStep(min, max, n)).toBeCloseTo(step, 12);
+    expect(linearTicks(min, max, n)).toEqual(ticks);
+  });
+
+  it.each([
+    [1, 1, 5],
+    [0, 1, 0],
+    [0, 1, 2.5],
+    [Number.NaN, 1, 5],
+  ])('rejects min %s, max %s, maxTicks %s', (min, max, n) => {
+    expect(() => niceStep(min, max, n)).toThrow(RangeError);
+  });
+});
