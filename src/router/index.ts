@@ -15,7 +15,9 @@ declare module 'vue-router' {
 }
 
 const routes: RouteRecordRaw[] = [
-  { path: '/', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { requiresAuth: true, title: 'Home' } },
+  // The planner is the home page after sign-in; `?sightline=<id>` opens a saved sightline in it.
+  { path: '/', name: 'home', component: () => import('@/views/PlannerView.vue'), meta: { requiresAuth: true, title: 'Planner' } },
+  { path: '/sightlines', name: 'sightlines', component: () => import('@/views/SightlinesView.vue'), meta: { requiresAuth: true, title: 'Sightlines' } },
   { path: '/signin', name: 'signin', component: () => import('@/views/SignInView.vue'), meta: { guestOnly: true, title: 'Sign in' } },
   { path: '/register', name: 'register', component: () => import('@/views/RegisterView.vue'), meta: { guestOnly: true, title: 'Create account' } },
   { path: '/admin', name: 'admin', component: () => import('@/views/AdminView.vue'), meta: { requiresAuth: true, role: 'admin', title: 'Accounts' } },
