@@ -1,11 +1,7 @@
 import type { z } from 'zod';
 import {
-  fieldNoteListResponseSchema,
-  fieldNoteResponseSchema,
   sightlineListResponseSchema,
   sightlineResponseSchema,
-  type FieldNote,
-  type FieldNoteInput,
   type Sightline,
   type SightlineInputBody,
   type sightlineUpdateSchema,
@@ -35,20 +31,4 @@ export async function updateSightline(id: string, change: SightlineChange): Prom
 
 export async function deleteSightline(id: string): Promise<void> {
   await request('DELETE', path(id));
-}
-
-export async function listFieldNotes(sightlineId: string): Promise<FieldNote[]> {
-  return (await request('GET', `${path(sightlineId)}/notes`, { schema: fieldNoteListResponseSchema })).notes;
-}
-
-export async function createFieldNote(sightlineId: string, body: FieldNoteInput): Promise<FieldNote> {
-  return (await request('POST', `${path(sightlineId)}/notes`, { body, schema: fieldNoteResponseSchema })).note;
-}
-
-export async function updateFieldNote(sightlineId: string, noteId: string, body: FieldNoteInput): Promise<FieldNote> {
-  return (await request('PUT', `${path(sightlineId)}/notes/${encodeURIComponent(noteId)}`, { body, schema: fieldNoteResponseSchema })).note;
-}
-
-export async function deleteFieldNote(sightlineId: string, noteId: string): Promise<void> {
-  await request('DELETE', `${path(sightlineId)}/notes/${encodeURIComponent(noteId)}`);
 }

@@ -1,5 +1,5 @@
 import { computed, type Ref } from 'vue';
-import { sightlineGeometry, type SightlineGeometry } from '../../shared/geo';
+import { distanceM, MAX_SIGHTLINE_DISTANCE_M, sightlineGeometry, type SightlineGeometry } from '../../shared/geo';
 import { usePlannerStore } from '@/stores/planner';
 import { useUnits } from './useUnits';
 
@@ -30,6 +30,10 @@ export function useSightlineReadout(when: Readonly<Ref<number | null>>) {
       return { geometry: null, message: store.vantagePoint ? 'Place the landmark to see the sightline.' : 'Place the vantage, then the landmark.' };
     }
     if (!store.vantage || !store.landmark) return { geometry: null, message: 'Fix the heights marked below to see the sightline.' };
+    const apart = distanceM(store.vantagePoint, store.landmarkPoint);
+    if (apart > MAX_SIGHTLINE_DISTANCE_M) {
+      return { geometry: null, message: `The pins are ${u.distance(apart)} apart; a sightline can be at most ${u.distance(MAX_SIGHTLINE_DISTANCE_M)}. Move one of them.` };
+    }
     try {
       return { geometry: sightlineGeometry(store.vantage, store.landmark, new Date(when.value ?? Date.now())), message: '' };
     } catch (error) {

@@ -1,4 +1,4 @@
-import { computed, ref, type Ref } from 'vue';
+import { computed, type Ref } from 'vue';
 import { whereToStand, whereToStandLine, type StandingSpot } from '../../shared/geo';
 import { targetHorizontal, type Target } from '../../shared/sky';
 import { usePlannerStore } from '@/stores/planner';
@@ -23,7 +23,7 @@ export interface OfferedSpot extends StandingSpot {
  */
 export function useWhereToStand(target: Readonly<Ref<Target>>, instantMs: Readonly<Ref<number | null>>) {
   const store = usePlannerStore();
-  const enabled = ref(false);
+  const enabled = computed({ get: () => store.showWhereToStand, set: (on: boolean) => { store.showWhereToStand = on; } });
 
   const result = computed<{ line: StandingSpot[]; offered: OfferedSpot[]; targetAltitudeDeg: number | null; message: string }>(() => {
     const empty = { line: [], offered: [], targetAltitudeDeg: null };

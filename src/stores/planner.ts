@@ -49,6 +49,8 @@ export const usePlannerStore = defineStore('planner', () => {
   /** The saved sightline the plan was opened from or saved as. */
   const opened = ref<{ id: string; name: string } | null>(null);
   const mapView = ref<MapView | null>(null);
+  /** Whether the map shows where to stand. */
+  const showWhereToStand = ref(false);
 
   /** The vantage as the shared schema reads it, or null while it is missing or a height is invalid. */
   const vantage = computed<Vantage | null>(() => {
@@ -109,6 +111,8 @@ export const usePlannerStore = defineStore('planner', () => {
     opened.value = { id: s.id, name: s.name };
     placing.value = 'landmark';
     mapView.value = null;
+    // Another site, maybe another zone: start from the default instant of its night.
+    timeMs.value = null;
   }
 
   /** Marks the plan as saved under this sightline. */
@@ -133,7 +137,7 @@ export const usePlannerStore = defineStore('planner', () => {
   }
 
   return {
-    vantagePoint, landmarkPoint, heights, bandHeightDeg, targetId, placing, nightDate, timeMs, opened, mapView,
+    vantagePoint, landmarkPoint, heights, bandHeightDeg, targetId, placing, nightDate, timeMs, opened, mapView, showWhereToStand,
     vantage, landmark, point, setPin, setHeight, loadSightline, markSaved, clear, sightlineInput,
   };
 });
