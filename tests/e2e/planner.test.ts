@@ -212,9 +212,30 @@ describe('the planner in the browser, with no map tiles', () => {
     await expect.poll(() => table.getByText(renamed).count()).toBe(0);
   });
 
+  it('opens a demo sightline at a real coast with both pins in view', async () => {
+    const { page } = s;
+    await page.locator('input[aria-label="Search sightlines by name"]').fill('');
+    const table = page.getByTestId('sightline-table');
+    await expect.poll(() => table.getByTestId('sightline-open').count()).toBeGreaterThan(0);
+    const name = (await table.locator('tbody tr').first().locator('.sightline-name').textContent())!;
+    await table.getByTestId('sightline-open').first().click();
+    await expect.poll(() => page.getByTestId('opened-sightline').textContent()).toBe(name);
+    await page.locator('.gn-pin-landmark').waitFor();
+    // The map frames the sightline: both pins inside the map.
+    const mapBox = (await page.locator(MAP).boundingBox())!;
+    for (const pin of ['.gn-pin-vantage', '.gn-pin-landmark']) {
+      const box = (await page.locator(pin).boundingBox())!;
+      expect(box.x, pin).toBeGreaterThan(mapBox.x);
+      expect(box.x + box.width, pin).toBeLessThan(mapBox.x + mapBox.width);
+      expect(box.y, pin).toBeGreaterThan(mapBox.y);
+      expect(box.y + box.height, pin).toBeLessThan(mapBox.y + mapBox.height);
+    }
+    await page.waitForTimeout(300);
+    await page.screenshot({ path: screenshotPath('planner-demo-sightline') });
+  });
+
   it('keeps the map readable in night vision (red only)', async () => {
     const { page } = s;
-    await page.getByRole('link', { name: 'Planner' }).click();
     await page.locator(MAP).waitFor();
     await page.getByTestId('night-vision-toggle').click();
     await expect.poll(() => computedStyle(page, 'body', 'background-color')).toBe('rgb(0, 0, 0)');
