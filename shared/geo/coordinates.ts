@@ -13,7 +13,7 @@
  * Written here because no maintained package in the project's stack parses this range of human
  * formats with error messages a user can act on; the grammar is small and fully tested.
  */
-import { assertInRange } from './guards';
+import { assertFiniteInRange } from '../guards';
 import type { GeoPoint } from './geodesy';
 
 /** Outcome of {@link parseCoordinates}: a point, or a message saying what is wrong. */
@@ -238,8 +238,8 @@ export function parseCoordinates(input: string): CoordinateParseResult {
 }
 
 function checkPoint(point: GeoPoint): void {
-  assertInRange('lat (deg)', point.lat, -90, 90);
-  assertInRange('lon (deg)', point.lon, -180, 180);
+  assertFiniteInRange(point.lat, 'lat (deg)', -90, 90);
+  assertFiniteInRange(point.lon, 'lon (deg)', -180, 180);
 }
 
 function fixed(value: number, decimals: number): string {
@@ -258,7 +258,7 @@ function fixed(value: number, decimals: number): string {
  */
 export function formatDecimalDegrees(point: GeoPoint, decimals = 6): string {
   checkPoint(point);
-  assertInRange('decimals', decimals, 0, 10);
+  assertFiniteInRange(decimals, 'decimals', 0, 10);
   return `${fixed(point.lat, Math.round(decimals))}, ${fixed(point.lon, Math.round(decimals))}`;
 }
 
@@ -285,7 +285,7 @@ function dms(value: number, positive: string, negative: string, secondDecimals: 
  */
 export function formatDms(point: GeoPoint, secondDecimals = 1): string {
   checkPoint(point);
-  assertInRange('secondDecimals', secondDecimals, 0, 4);
+  assertFiniteInRange(secondDecimals, 'secondDecimals', 0, 4);
   const n = Math.round(secondDecimals);
   return `${dms(point.lat, 'N', 'S', n)} ${dms(point.lon, 'E', 'W', n)}`;
 }

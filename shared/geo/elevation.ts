@@ -17,7 +17,8 @@
 import type { Landmark, Vantage } from '../schemas/geometry';
 import { landmarkSchema, vantageSchema } from '../schemas/geometry';
 import { distanceM as geodesicDistanceM } from './geodesy';
-import { assertInRange, parseOrThrow } from './guards';
+import { assertFiniteInRange, parseOrThrow } from '../guards';
+import { DEG_PER_RAD } from '../units';
 
 /** Mean Earth radius used by the curvature-and-refraction drop, metres. */
 export const EARTH_RADIUS_M = 6_371_000;
@@ -39,14 +40,12 @@ export const MAX_REFRACTION_COEFFICIENT = 1;
 const MIN_HEIGHT_M = -1_000;
 const MAX_HEIGHT_M = 12_000;
 
-const DEG_PER_RAD = 180 / Math.PI;
-
 function checkDistance(distance: number): void {
-  assertInRange('distanceM', distance, MIN_SIGHTLINE_DISTANCE_M, MAX_SIGHTLINE_DISTANCE_M);
+  assertFiniteInRange(distance, 'distanceM', MIN_SIGHTLINE_DISTANCE_M, MAX_SIGHTLINE_DISTANCE_M);
 }
 
 function checkK(k: number): void {
-  assertInRange('k (refraction coefficient)', k, MIN_REFRACTION_COEFFICIENT, MAX_REFRACTION_COEFFICIENT);
+  assertFiniteInRange(k, 'k (refraction coefficient)', MIN_REFRACTION_COEFFICIENT, MAX_REFRACTION_COEFFICIENT);
 }
 
 /**
@@ -60,7 +59,7 @@ function checkK(k: number): void {
  * @throws RangeError on NaN or out-of-range input
  */
 export function curvatureRefractionDropM(distance: number, k: number = DEFAULT_REFRACTION_COEFFICIENT): number {
-  assertInRange('distanceM', distance, 0, MAX_SIGHTLINE_DISTANCE_M);
+  assertFiniteInRange(distance, 'distanceM', 0, MAX_SIGHTLINE_DISTANCE_M);
   checkK(k);
   return (distance * distance) / (2 * EARTH_RADIUS_M) * (1 - k);
 }
@@ -83,8 +82,8 @@ export function elevationAngleDeg(
   distance: number,
   k: number = DEFAULT_REFRACTION_COEFFICIENT,
 ): number {
-  assertInRange('eyeElevationM', eyeElevation, MIN_HEIGHT_M, MAX_HEIGHT_M);
-  assertInRange('pointElevationM', pointElevation, MIN_HEIGHT_M, MAX_HEIGHT_M);
+  assertFiniteInRange(eyeElevation, 'eyeElevationM', MIN_HEIGHT_M, MAX_HEIGHT_M);
+  assertFiniteInRange(pointElevation, 'pointElevationM', MIN_HEIGHT_M, MAX_HEIGHT_M);
   checkDistance(distance);
   checkK(k);
   const drop = (distance * distance) / (2 * EARTH_RADIUS_M) * (1 - k);
@@ -156,7 +155,7 @@ export function landmarkElevationAnglesDeg(
  * @throws RangeError on NaN or out-of-range input
  */
 export function angularWidthDeg(widthM: number, distance: number): number {
-  assertInRange('widthM', widthM, 0, 10_000);
+  assertFiniteInRange(widthM, 'widthM', 0, 10_000);
   checkDistance(distance);
   return 2 * Math.atan(widthM / (2 * distance)) * DEG_PER_RAD;
 }

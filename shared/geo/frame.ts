@@ -11,7 +11,7 @@ import {
   MIN_SIGHTLINE_DISTANCE_M,
 } from './elevation';
 import { geodesicInverse } from './geodesy';
-import { assertPositiveUpTo, parseOrThrow } from './guards';
+import { assertPositiveUpTo, parseOrThrow } from '../guards';
 import { magneticBearingDeg as toMagneticBearing, magneticDeclination } from './magnetic';
 
 /** Default height of the frame's altitude band above the landmark top, degrees. */
@@ -64,8 +64,8 @@ function parseSightline(vantage: Vantage, landmark: Landmark): ParsedSightline {
  * @throws RangeError on invalid input, out-of-range options, or coincident vantage and landmark
  */
 export function frameFromSightline(vantage: Vantage, landmark: Landmark, options: FrameOptions = {}): Frame {
-  const bandHeight = assertPositiveUpTo('bandHeightDeg', options.bandHeightDeg ?? DEFAULT_BAND_HEIGHT_DEG, 90);
-  const minHalfWidth = assertPositiveUpTo('minHalfWidthDeg', options.minHalfWidthDeg ?? MIN_FRAME_HALF_WIDTH_DEG, 90);
+  const bandHeight = assertPositiveUpTo(options.bandHeightDeg ?? DEFAULT_BAND_HEIGHT_DEG, 'bandHeightDeg', 90);
+  const minHalfWidth = assertPositiveUpTo(options.minHalfWidthDeg ?? MIN_FRAME_HALF_WIDTH_DEG, 'minHalfWidthDeg', 90);
   const k = options.k ?? DEFAULT_REFRACTION_COEFFICIENT;
   const s = parseSightline(vantage, landmark);
   const eye = s.vantage.elevationM + s.vantage.cameraHeightM;

@@ -23,7 +23,8 @@
 import geographiclib from 'geographiclib-geodesic';
 import { bearing as turfBearing, destination as turfDestination, distance as turfDistance } from '@turf/turf';
 import type { Vantage } from '../schemas/geometry';
-import { assertInRange, normalizeDegrees360 } from './guards';
+import { assertFiniteInRange } from '../guards';
+import { normalizeDegrees180, normalizeDegrees360 } from '../units';
 
 /** A point on the Earth: geodetic latitude and longitude in degrees (WGS84). */
 export type GeoPoint = Pick<Vantage, 'lat' | 'lon'>;
@@ -46,13 +47,8 @@ function checkPoint(name: string, point: GeoPoint): void {
   if (point === null || typeof point !== 'object') {
     throw new RangeError(`${name} must be an object with lat and lon in degrees`);
   }
-  assertInRange(`${name}.lat (deg)`, point.lat, -90, 90);
-  assertInRange(`${name}.lon (deg)`, point.lon, -180, 180);
-}
-
-/** Longitude folded to `[-180, 180)` degrees. */
-function normalizeLongitude(lonDeg: number): number {
-  return normalizeDegrees360(lonDeg + 180) - 180;
+  assertFiniteInRange(point.lat, `${name}.lat (deg)`, -90, 90);
+  assertFiniteInRange(point.lon, `${name}.lon (deg)`, -180, 180);
 }
 
 /** Result of the inverse geodesic problem between two points. */
@@ -133,12 +129,12 @@ export interface Destination extends GeoPoint {
  */
 export function destinationPoint(start: GeoPoint, bearingDeg: number, distance: number): Destination {
   checkPoint('start', start);
-  assertInRange('bearingDeg', bearingDeg, -Number.MAX_VALUE, Number.MAX_VALUE);
-  assertInRange('distanceM', distance, 0, MAX_GEODESIC_DISTANCE_M);
+  assertFiniteInRange(bearingDeg, 'bearingDeg');
+  assertFiniteInRange(distance, 'distanceM', 0, MAX_GEODESIC_DISTANCE_M);
   const r = WGS84.Direct(start.lat, start.lon, normalizeDegrees360(bearingDeg), distance, DIRECT_MASK);
   return {
     lat: r.lat2 ?? start.lat,
-    lon: normalizeLongitude(r.lon2 ?? start.lon),
+    lon: normalizeDegrees180(r.lon2 ?? start.lon),
     finalBearingDeg: normalizeDegrees360(r.azi2 ?? bearingDeg),
   };
 }
@@ -188,9 +184,9 @@ export function sphericalInitialBearingDeg(from: GeoPoint, to: GeoPoint): number
  */
 export function sphericalDestinationPoint(start: GeoPoint, bearingDeg: number, distance: number): GeoPoint {
   checkPoint('start', start);
-  assertInRange('bearingDeg', bearingDeg, -Number.MAX_VALUE, Number.MAX_VALUE);
-  assertInRange('distanceM', distance, 0, MAX_GEODESIC_DISTANCE_M);
+  assertFiniteInRange(bearingDeg, 'bearingDeg');
+  assertFiniteInRange(distance, 'distanceM', 0, MAX_GEODESIC_DISTANCE_M);
   const coordinates = turfDestination([start.lon, start.lat], distance, normalizeDegrees360(bearingDeg), { units: 'meters' }).geometry.coordinates;
   // A GeoJSON position is [lon, lat]; turf always fills both.
-  return { lat: coordinates[1] as number, lon: normalizeLongitude(coordinates[0] as number) };
+  return { lat: coordinates[1] as number, lon: normalizeDegrees180(coordinates[0] as number) };
 }

@@ -58,4 +58,4 @@ export type { ElevationAngleRange, EyeHeight, StandingSpot, WhereToStandOptions 
 export { formatDecimalDegrees, formatDms, parseCoordinates } from './coordinates';
 export type { CoordinateParseResult } from './coordinates';
 
-export { angleDifferenceDeg, normalizeDegrees360 } from './guards';
+export { angleDifferenceDeg, normalizeDegrees360 } from '../units';

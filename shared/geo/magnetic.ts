@@ -18,7 +18,8 @@
  */
 import { magneticField, MODEL_EPOCH, MODEL_VALID_UNTIL } from 'magvar';
 import type { GeoPoint } from './geodesy';
-import { assertInRange, normalizeDegrees360 } from './guards';
+import { assertFiniteInRange, assertValidDate } from '../guards';
+import { normalizeDegrees360 } from '../units';
 
 /** Name of the geomagnetic model used. */
 export const MAGNETIC_MODEL_NAME = 'WMM2025';
@@ -64,13 +65,8 @@ export interface MagneticDeclination {
 }
 
 function toDecimalYearInput(when: Date | number): Date | number {
-  if (when instanceof Date) {
-    if (!Number.isFinite(when.getTime())) {
-      throw new RangeError('date must be a valid Date');
-    }
-    return when;
-  }
-  return assertInRange('decimal year', when, MIN_DECIMAL_YEAR, MAX_DECIMAL_YEAR);
+  if (when instanceof Date) return assertValidDate(when, 'date');
+  return assertFiniteInRange(when, 'decimal year', MIN_DECIMAL_YEAR, MAX_DECIMAL_YEAR);
 }
 
 /**
@@ -88,9 +84,9 @@ export function magneticDeclination(position: MagneticPosition, when: Date | num
   if (position === null || typeof position !== 'object') {
     throw new RangeError('position must be an object with lat, lon (deg) and heightM (m)');
   }
-  const lat = assertInRange('lat (deg)', position.lat, -90, 90);
-  const lon = assertInRange('lon (deg)', position.lon, -180, 180);
-  const heightM = assertInRange('heightM', position.heightM ?? 0, MIN_HEIGHT_M, MAX_HEIGHT_M);
+  const lat = assertFiniteInRange(position.lat, 'lat (deg)', -90, 90);
+  const lon = assertFiniteInRange(position.lon, 'lon (deg)', -180, 180);
+  const heightM = assertFiniteInRange(position.heightM ?? 0, 'heightM', MIN_HEIGHT_M, MAX_HEIGHT_M);
   const field = magneticField(lat, lon, heightM / 1000, toDecimalYearInput(when));
   const withinModelValidity = field.decimalYear >= MODEL_EPOCH && field.decimalYear < MODEL_VALID_UNTIL;
   const warnings: string[] = [];
@@ -127,8 +123,8 @@ export function magneticDeclination(position: MagneticPosition, when: Date | num
  * @throws RangeError on NaN or out-of-range input
  */
 export function magneticBearingDeg(trueBearingDeg: number, declinationDeg: number): number {
-  assertInRange('trueBearingDeg', trueBearingDeg, -Number.MAX_VALUE, Number.MAX_VALUE);
-  assertInRange('declinationDeg', declinationDeg, -180, 180);
+  assertFiniteInRange(trueBearingDeg, 'trueBearingDeg');
+  assertFiniteInRange(declinationDeg, 'declinationDeg', -180, 180);
   return normalizeDegrees360(trueBearingDeg - declinationDeg);
 }
 
@@ -142,7 +138,7 @@ export function magneticBearingDeg(trueBearingDeg: number, declinationDeg: numbe
  * @throws RangeError on NaN or out-of-range input
  */
 export function trueBearingFromMagneticDeg(magneticBearing: number, declinationDeg: number): number {
-  assertInRange('magneticBearingDeg', magneticBearing, -Number.MAX_VALUE, Number.MAX_VALUE);
-  assertInRange('declinationDeg', declinationDeg, -180, 180);
+  assertFiniteInRange(magneticBearing, 'magneticBearingDeg');
+  assertFiniteInRange(declinationDeg, 'declinationDeg', -180, 180);
   return normalizeDegrees360(magneticBearing + declinationDeg);
 }

@@ -21,7 +21,8 @@ import { landmarkSchema } from '../schemas/geometry';
 import { DEFAULT_REFRACTION_COEFFICIENT, EARTH_RADIUS_M, MAX_SIGHTLINE_DISTANCE_M, MIN_REFRACTION_COEFFICIENT, MAX_REFRACTION_COEFFICIENT, MIN_SIGHTLINE_DISTANCE_M } from './elevation';
 import { destinationPoint } from './geodesy';
 import type { GeoPoint } from './geodesy';
-import { angleDifferenceDeg, assertInRange, assertPositiveUpTo, normalizeDegrees360, parseOrThrow } from './guards';
+import { assertFiniteInRange, assertPositiveUpTo, parseOrThrow } from '../guards';
+import { angleDifferenceDeg, normalizeDegrees360, RAD_PER_DEG } from '../units';
 
 /** Default farthest spot offered, metres: beyond ~50 km a landmark is a speck and the model's checks end. */
 export const DEFAULT_MAX_STANDING_DISTANCE_M = 50_000;
@@ -31,7 +32,6 @@ export const MAX_CANDIDATE_SPOTS = 1801;
 const MAX_ABS_ELEVATION_DEG = 89.99;
 const BEARING_ITERATION_TOLERANCE_DEG = 1e-10;
 const BEARING_ITERATION_MAX_STEPS = 20;
-const RAD_PER_DEG = Math.PI / 180;
 
 /**
  * The camera eye's height: either directly above sea level, or as the spot's ground elevation
@@ -67,10 +67,10 @@ function eyeElevationOf(eye: EyeHeight): number {
     throw new RangeError('eye must give eyeElevationM, or groundElevationM and cameraHeightM');
   }
   if ('eyeElevationM' in eye) {
-    return assertInRange('eyeElevationM', eye.eyeElevationM, -500, 9100);
+    return assertFiniteInRange(eye.eyeElevationM, 'eyeElevationM', -500, 9100);
   }
-  const ground = assertInRange('groundElevationM', eye.groundElevationM, -500, 9000);
-  const camera = assertInRange('cameraHeightM', eye.cameraHeightM ?? 1.5, 0, 100);
+  const ground = assertFiniteInRange(eye.groundElevationM, 'groundElevationM', -500, 9000);
+  const camera = assertFiniteInRange(eye.cameraHeightM ?? 1.5, 'cameraHeightM', 0, 100);
   return ground + camera;
 }
 
@@ -94,10 +94,10 @@ export function distanceForElevationAngleM(
   elevationAngle: number,
   k: number = DEFAULT_REFRACTION_COEFFICIENT,
 ): number | null {
-  assertInRange('topElevationM', topElevation, -1000, 12_000);
-  assertInRange('eyeElevationM', eyeElevation, -1000, 12_000);
-  assertInRange('elevationAngleDeg', elevationAngle, -MAX_ABS_ELEVATION_DEG, MAX_ABS_ELEVATION_DEG);
-  assertInRange('k (refraction coefficient)', k, MIN_REFRACTION_COEFFICIENT, MAX_REFRACTION_COEFFICIENT);
+  assertFiniteInRange(topElevation, 'topElevationM', -1000, 12_000);
+  assertFiniteInRange(eyeElevation, 'eyeElevationM', -1000, 12_000);
+  assertFiniteInRange(elevationAngle, 'elevationAngleDeg', -MAX_ABS_ELEVATION_DEG, MAX_ABS_ELEVATION_DEG);
+  assertFiniteInRange(k, 'k (refraction coefficient)', MIN_REFRACTION_COEFFICIENT, MAX_REFRACTION_COEFFICIENT);
   const rise = topElevation - eyeElevation;
   const t = Math.tan(elevationAngle * RAD_PER_DEG);
   const c = (1 - k) / (2 * EARTH_RADIUS_M);
@@ -141,9 +141,9 @@ export function whereToStand(
   options: WhereToStandOptions = {},
 ): StandingSpot | null {
   const l = parseOrThrow('landmark', landmarkSchema, landmark);
-  assertInRange('targetAzimuthDeg', targetAzimuthDeg, -Number.MAX_VALUE, Number.MAX_VALUE);
+  assertFiniteInRange(targetAzimuthDeg, 'targetAzimuthDeg');
   const eyeElevation = eyeElevationOf(eye);
-  const maxDistance = assertPositiveUpTo('maxDistanceM', options.maxDistanceM ?? DEFAULT_MAX_STANDING_DISTANCE_M, MAX_SIGHTLINE_DISTANCE_M);
+  const maxDistance = assertPositiveUpTo(options.maxDistanceM ?? DEFAULT_MAX_STANDING_DISTANCE_M, 'maxDistanceM', MAX_SIGHTLINE_DISTANCE_M);
   const d = distanceForElevationAngleM(l.baseElevationM + l.heightM, eyeElevation, elevationAngleDeg, options.k ?? DEFAULT_REFRACTION_COEFFICIENT);
   if (d === null || d > maxDistance || d < MIN_SIGHTLINE_DISTANCE_M) return null;
 
@@ -195,9 +195,9 @@ export function whereToStandLine(
   eye: EyeHeight,
   range: ElevationAngleRange,
 ): StandingSpot[] {
-  const from = assertInRange('fromDeg', range.fromDeg, -MAX_ABS_ELEVATION_DEG, MAX_ABS_ELEVATION_DEG);
-  const to = assertInRange('toDeg', range.toDeg, -MAX_ABS_ELEVATION_DEG, MAX_ABS_ELEVATION_DEG);
-  const step = assertPositiveUpTo('stepDeg', range.stepDeg ?? 1, 180);
+  const from = assertFiniteInRange(range.fromDeg, 'fromDeg', -MAX_ABS_ELEVATION_DEG, MAX_ABS_ELEVATION_DEG);
+  const to = assertFiniteInRange(range.toDeg, 'toDeg', -MAX_ABS_ELEVATION_DEG, MAX_ABS_ELEVATION_DEG);
+  const step = assertPositiveUpTo(range.stepDeg ?? 1, 'stepDeg', 180);
   // A hair of slack so that 1..10 by 0.1 includes 10 despite rounding.
   const count = Math.floor(Math.abs(to - from) / step + 1e-9) + 1;
   if (count > MAX_CANDIDATE_SPOTS) {

@@ -10,7 +10,7 @@ import {
   sphericalDistanceM,
   sphericalInitialBearingDeg,
 } from '../../../shared/geo/geodesy';
-import { angleDifferenceDeg } from '../../../shared/geo/guards';
+import { angleDifferenceDeg } from '../../../shared/units';
 
 const reference = geographiclib.Geodesic.WGS84;
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { landmarkElevationAnglesDeg } from '../../../shared/geo/elevation';
 import { destinationPoint, initialBearingDeg } from '../../../shared/geo/geodesy';
-import { angleDifferenceDeg } from '../../../shared/geo/guards';
+import { angleDifferenceDeg } from '../../../shared/units';
 import { distanceForElevationAngleM, whereToStand, whereToStandLine } from '../../../shared/geo/where-to-stand';
 import type { Landmark, Vantage } from '../../../shared/schemas/geometry';
 
