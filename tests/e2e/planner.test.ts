@@ -5,7 +5,7 @@ import { DEMO_PASSWORD, demoAccounts } from '../../server/seeders/demo';
 import { formatDecimalDegrees, geodesicInverse, parseCoordinates } from '../../shared/geo';
 import { localDateOf, nightReport } from '../../shared/sky';
 import {
-  clickAt, computedStyle, evalInPage, failTileRequests, openBrowser, screenshotPath, signIn, type BrowserSession,
+  clickAt, computedStyle, evalInPage, failTileRequests, isTileRequest, openBrowser, screenshotPath, signIn, type BrowserSession,
 } from './helpers';
 
 const member = demoAccounts.find((a) => a.role === 'member')!;
@@ -256,6 +256,25 @@ describe('the planner in the browser, with no map tiles', () => {
     // The only console errors allowed are the API's deliberate answers: 401 before signing in,
     // 400 for the empty name above.
     expect(s.pageErrors.filter((e) => !/status of 40[01]/.test(e))).toEqual([]);
+  });
+});
+
+describe('the planner with map tiles', () => {
+  it('shows the tiles and no offline notice when the tile server answers', async () => {
+    const b = await openBrowser();
+    try {
+      // A stand-in tile server: every tile is a 1x1 PNG.
+      const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=', 'base64');
+      await b.context.route((url) => isTileRequest(url.toString()), (route) => route.fulfill({ status: 200, contentType: 'image/png', body: png }));
+      await signIn(b.page, member.email, DEMO_PASSWORD);
+      await expect.poll(() => b.page.locator(`${MAP} img.leaflet-tile-loaded`).count()).toBeGreaterThan(0);
+      expect(b.tileRequests.length).toBeGreaterThan(0);
+      expect(await b.page.getByTestId('map-offline-notice').count()).toBe(0);
+      expect(await b.page.locator(`${MAP} path.gn-land`).count()).toBe(0);
+      expect(b.offsiteRequests).toEqual([]);
+    } finally {
+      await b.browser.close();
+    }
   });
 });
 
