@@ -18,8 +18,5 @@ export const MOON_RADIUS_KM = 1737.4;
 /** Astronomical unit in kilometres (IAU 2012). */
 export const AU_KM = 149_597_870.7;
 
-export const DEG_PER_RAD = 180 / Math.PI;
-export const RAD_PER_DEG = Math.PI / 180;
-export const MS_PER_MINUTE = 60_000;
-export const MS_PER_HOUR = 3_600_000;
-export const MS_PER_DAY = 86_400_000;
+// The time and angle units live in shared/units.ts; re-exported so the sky's barrel keeps them.
+export { DEG_PER_RAD, MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE, RAD_PER_DEG } from '../units';

@@ -8,7 +8,8 @@
  * threshold between two samples is not missed), each sign change is bisected, and every crossing
  * is checked again on exact values a moment before and after before it is returned.
  */
-import { assertFiniteInRange } from './guards';
+import { assertFiniteInRange } from '../guards';
+import { MS_PER_MINUTE } from '../units';
 
 /** One threshold crossing. */
 export interface ThresholdCrossing {
@@ -149,7 +150,7 @@ export function findThresholdCrossings(
   threshold: number,
   options: CrossingSearchOptions = {},
 ): ThresholdCrossing[] {
-  const stepMs = assertFiniteInRange(options.stepMs ?? 20 * 60_000, 'options.stepMs', 1);
+  const stepMs = assertFiniteInRange(options.stepMs ?? 20 * MS_PER_MINUTE, 'options.stepMs', 1);
   return crossingsFromSamples(f, sampleWithExtrema(f, startMs, endMs, stepMs), threshold, options);
 }
 

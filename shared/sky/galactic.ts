@@ -10,8 +10,9 @@
  * position is exported too for reference.
  */
 import type { EquatorialJ2000 } from '../schemas/geometry';
-import { DEG_PER_RAD, RAD_PER_DEG } from './constants';
-import { assertEquatorialJ2000, assertFiniteInRange } from './guards';
+import { assertFiniteInRange } from '../guards';
+import { DEG_PER_RAD, normalizeDegrees360, RAD_PER_DEG } from '../units';
+import { assertEquatorialJ2000 } from './guards';
 
 /** RA of the north galactic pole (J2000/ICRS), degrees (astropy Galactic frame). */
 export const NORTH_GALACTIC_POLE_RA_DEG = 192.8594812065348;
@@ -29,11 +30,6 @@ export interface Galactic {
 const SIN_DEC_GP = Math.sin(NORTH_GALACTIC_POLE_DEC_DEG * RAD_PER_DEG);
 const COS_DEC_GP = Math.cos(NORTH_GALACTIC_POLE_DEC_DEG * RAD_PER_DEG);
 
-function wrap360(deg: number): number {
-  const d = deg % 360;
-  return d < 0 ? d + 360 : d;
-}
-
 /**
  * Galactic coordinates of a J2000 position.
  * @param position RA 0..24 h, Dec -90..90 deg (J2000/ICRS)
@@ -49,7 +45,7 @@ export function equatorialJ2000ToGalactic(position: EquatorialJ2000): Galactic {
   const y = Math.cos(dec) * Math.sin(dRa);
   const x = Math.sin(dec) * COS_DEC_GP - Math.cos(dec) * SIN_DEC_GP * Math.cos(dRa);
   const l = NORTH_CELESTIAL_POLE_GALACTIC_LON_DEG - Math.atan2(y, x) * DEG_PER_RAD;
-  return { lDeg: wrap360(l), bDeg: Math.asin(Math.max(-1, Math.min(1, sinB))) * DEG_PER_RAD };
+  return { lDeg: normalizeDegrees360(l), bDeg: Math.asin(Math.max(-1, Math.min(1, sinB))) * DEG_PER_RAD };
 }
 
 /**
@@ -67,7 +63,7 @@ export function galacticToEquatorialJ2000(lDeg: number, bDeg: number): Equatoria
   const sinDec = Math.sin(b) * SIN_DEC_GP + Math.cos(b) * COS_DEC_GP * Math.cos(dl);
   const y = Math.cos(b) * Math.sin(dl);
   const x = Math.sin(b) * COS_DEC_GP - Math.cos(b) * SIN_DEC_GP * Math.cos(dl);
-  const raDeg = wrap360(NORTH_GALACTIC_POLE_RA_DEG + Math.atan2(y, x) * DEG_PER_RAD);
+  const raDeg = normalizeDegrees360(NORTH_GALACTIC_POLE_RA_DEG + Math.atan2(y, x) * DEG_PER_RAD);
   const raHours = raDeg / 15;
   return { raHours: raHours >= 24 ? 0 : raHours, decDeg: Math.asin(Math.max(-1, Math.min(1, sinDec))) * DEG_PER_RAD };
 }

@@ -1,41 +1,19 @@
 /**
- * Input guards for the sky modules. Each throws a RangeError (with the argument's name) on NaN,
- * non-finite or out-of-range input, so callers get one error type for bad numbers.
+ * Guards of the sky's input shapes: an observer site and a J2000 position, used by the sky
+ * modules, the lineup engine and the charts. Each throws a RangeError naming the field on a
+ * missing, NaN or out-of-range value (wording of shared/guards.ts).
  */
 import type { EquatorialJ2000, ObserverSite } from '../schemas/geometry';
+import { assertFiniteInRange } from '../guards';
 
-/** Lowest and highest ground elevation (metres) accepted for an observer, as in the geometry schemas. */
+// The number and date guards live in shared/guards.ts; re-exported here because the sky's barrel
+// and shared/chart expose them from this module.
+export { assertFiniteInRange, assertValidDate } from '../guards';
+
+/** Lowest ground elevation (metres above sea level) accepted for an observer, as in the geometry schemas. */
 export const MIN_ELEVATION_M = -500;
+/** Highest ground elevation (metres above sea level) accepted for an observer, as in the geometry schemas. */
 export const MAX_ELEVATION_M = 9000;
-
-/**
- * Checks that `value` is a finite number within [min, max] (inclusive) and returns it.
- * @param value the number to check
- * @param name the argument's name, used in the error message
- * @param min lowest allowed value (default -Infinity)
- * @param max highest allowed value (default +Infinity)
- * @throws RangeError when `value` is not a finite number in range
- */
-export function assertFiniteInRange(value: unknown, name: string, min = -Infinity, max = Infinity): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new RangeError(`${name} must be a finite number (got ${String(value)})`);
-  }
-  if (value < min || value > max) {
-    throw new RangeError(`${name} must be between ${min} and ${max} (got ${value})`);
-  }
-  return value;
-}
-
-/**
- * Checks that `value` is a valid Date (not an Invalid Date) and returns it.
- * @throws RangeError when `value` is not a Date or its time is NaN
- */
-export function assertValidDate(value: unknown, name: string): Date {
-  if (!(value instanceof Date) || !Number.isFinite(value.getTime())) {
-    throw new RangeError(`${name} must be a valid Date`);
-  }
-  return value;
-}
 
 /**
  * Checks an observer site: latitude -90..90 deg, longitude -180..180 deg (east positive),

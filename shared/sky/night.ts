@@ -21,13 +21,12 @@ import {
   ASTRONOMICAL_TWILIGHT_ALTITUDE_DEG,
   AU_KM,
   CIVIL_TWILIGHT_ALTITUDE_DEG,
-  DEG_PER_RAD,
   HORIZON_REFRACTION_DEG,
   MOON_RADIUS_KM,
-  MS_PER_MINUTE,
   NAUTICAL_TWILIGHT_ALTITUDE_DEG,
   SUNRISE_ALTITUDE_DEG,
 } from './constants';
+import { DEG_PER_RAD, MS_PER_MINUTE } from '../units';
 import { crossingsFromSamples, findThresholdCrossings, sampleWithExtrema, type ThresholdCrossing } from './crossings';
 import { assertSite } from './guards';
 import { moonIllumination, observerForSite, type MoonPhaseName } from './positions';

@@ -28,8 +28,10 @@ import {
   type AstroTime,
 } from 'astronomy-engine';
 import type { EquatorialJ2000, ObserverSite } from '../schemas/geometry';
-import { AU_KM, DEG_PER_RAD, MOON_RADIUS_KM } from './constants';
-import { assertEquatorialJ2000, assertFiniteInRange, assertSite, assertValidDate } from './guards';
+import { assertFiniteInRange, assertValidDate } from '../guards';
+import { DEG_PER_RAD, normalizeDegrees360 } from '../units';
+import { AU_KM, MOON_RADIUS_KM } from './constants';
+import { assertEquatorialJ2000, assertSite } from './guards';
 
 /** The bodies this module places: the Sun and the Moon. */
 export type SkyBody = 'sun' | 'moon';
@@ -120,11 +122,6 @@ function bodyOf(body: SkyBody): Body {
   throw new RangeError(`body must be 'sun' or 'moon' (got ${String(body)})`);
 }
 
-function normalizeAzimuth(az: number): number {
-  const a = az % 360;
-  return a < 0 ? a + 360 : a;
-}
-
 /**
  * Topocentric apparent equatorial position of date of the Sun or the Moon.
  * @param body 'sun' or 'moon'
@@ -156,7 +153,7 @@ export function bodyHorizontal(body: SkyBody, site: ObserverSite, date: Date, op
   const eq = Equator(bodyOf(body), time, observer, true, true);
   const hor = Horizon(time, observer, eq.ra, eq.dec, options.refraction === false ? undefined : 'normal');
   return {
-    azimuthDeg: normalizeAzimuth(hor.azimuth),
+    azimuthDeg: normalizeDegrees360(hor.azimuth),
     altitudeDeg: hor.altitude,
     raHoursOfDate: eq.ra,
     decDegOfDate: eq.dec,
@@ -214,7 +211,7 @@ export function horizontalFromEquatorOfDate(
   const observer = observerForSite(site);
   const hor = Horizon(date, observer, equatorOfDate.raHours, equatorOfDate.decDeg, options.refraction === false ? undefined : 'normal');
   return {
-    azimuthDeg: normalizeAzimuth(hor.azimuth),
+    azimuthDeg: normalizeDegrees360(hor.azimuth),
     altitudeDeg: hor.altitude,
     raHoursOfDate: equatorOfDate.raHours,
     decDegOfDate: equatorOfDate.decDeg,
@@ -236,7 +233,7 @@ export function targetHorizontal(target: EquatorialJ2000, site: ObserverSite, da
   const time = MakeTime(date);
   const eq = rotateJ2000ToDate(t, time);
   const hor = Horizon(time, observer, eq.raHours, eq.decDeg, options.refraction === false ? undefined : 'normal');
-  return { azimuthDeg: normalizeAzimuth(hor.azimuth), altitudeDeg: hor.altitude, raHoursOfDate: eq.raHours, decDegOfDate: eq.decDeg };
+  return { azimuthDeg: normalizeDegrees360(hor.azimuth), altitudeDeg: hor.altitude, raHoursOfDate: eq.raHours, decDegOfDate: eq.decDeg };
 }
 
 /**
@@ -248,7 +245,7 @@ export function targetHorizontal(target: EquatorialJ2000, site: ObserverSite, da
  */
 export function moonPhaseName(elongationDeg: number): MoonPhaseName {
   assertFiniteInRange(elongationDeg, 'elongationDeg');
-  const e = ((elongationDeg % 360) + 360) % 360;
+  const e = normalizeDegrees360(elongationDeg);
   for (const [centre, name] of PRINCIPAL_PHASES) if (Math.abs(e - centre) <= PRINCIPAL_PHASE_HALF_WIDTH_DEG) return name;
   if (e < 90) return 'waxing crescent';
   if (e < 180) return 'waxing gibbous';

@@ -15,7 +15,7 @@
  *   fixed-point iteration with a bounded number of steps.
  */
 import { Refraction } from 'astronomy-engine';
-import { assertFiniteInRange } from './guards';
+import { assertFiniteInRange } from '../guards';
 
 /**
  * Refraction lift, in degrees, for an object at the given true (airless) altitude: add it to the

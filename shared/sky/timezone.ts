@@ -4,7 +4,8 @@
  */
 import { DateTime } from 'luxon';
 import tzLookup from 'tz-lookup';
-import { assertFiniteInRange, assertValidDate } from './guards';
+import { assertFiniteInRange, assertValidDate } from '../guards';
+import { MS_PER_MINUTE, MS_PER_SECOND } from '../units';
 
 /** An instant with its site's zone: the UTC Date plus the local reading of it. */
 export interface LocalInstant {
@@ -91,7 +92,7 @@ export function assertLocalDate(date: unknown): LocalDateString {
 export function toLocalInstant(utc: Date, timeZone: string): LocalInstant {
   assertValidDate(utc, 'utc');
   assertTimeZone(timeZone);
-  const dt = DateTime.fromMillis(Math.round(utc.getTime() / 1000) * 1000, { zone: timeZone });
+  const dt = DateTime.fromMillis(Math.round(utc.getTime() / MS_PER_SECOND) * MS_PER_SECOND, { zone: timeZone });
   return {
     utc: new Date(utc.getTime()),
     timeZone,
@@ -111,7 +112,7 @@ export function toLocalInstant(utc: Date, timeZone: string): LocalInstant {
 export function formatLocalTime(utc: Date, timeZone: string, withSeconds = false): string {
   assertValidDate(utc, 'utc');
   assertTimeZone(timeZone);
-  const unitMs = withSeconds ? 1000 : 60_000;
+  const unitMs = withSeconds ? MS_PER_SECOND : MS_PER_MINUTE;
   const dt = DateTime.fromMillis(Math.round(utc.getTime() / unitMs) * unitMs, { zone: timeZone });
   return `${dt.toFormat(withSeconds ? 'yyyy-MM-dd HH:mm:ss' : 'yyyy-MM-dd HH:mm')} ${zoneLabel(dt)}`;
 }
