@@ -3,6 +3,7 @@
  * evaluating it with Clenshaw's recurrence. Own code: it is twenty lines, and no maintained npm
  * package offers fitted ephemeris tables over astronomy-engine.
  */
+import { assertFiniteInRange, assertIntegerInRange } from '../guards';
 
 /**
  * Fits `componentCount` functions on [a, b] with `coefficientCount` Chebyshev terms each.
@@ -21,9 +22,11 @@ export function fitChebyshev(
   coefficientCount: number,
   componentCount: number,
 ): Float64Array {
-  if (!Number.isFinite(a) || !Number.isFinite(b) || !(b > a)) throw new RangeError('Chebyshev interval must be finite with b > a');
-  if (!Number.isInteger(coefficientCount) || coefficientCount < 2 || coefficientCount > 64) throw new RangeError('coefficientCount must be 2..64');
-  if (!Number.isInteger(componentCount) || componentCount < 1 || componentCount > 8) throw new RangeError('componentCount must be 1..8');
+  assertFiniteInRange(a, 'a');
+  assertFiniteInRange(b, 'b');
+  if (!(b > a)) throw new RangeError('Chebyshev interval must have b > a');
+  assertIntegerInRange(coefficientCount, 'coefficientCount', 2, 64);
+  assertIntegerInRange(componentCount, 'componentCount', 1, 8);
   const n = coefficientCount;
   const values = new Float64Array(n * componentCount);
   const scratch = new Float64Array(componentCount);

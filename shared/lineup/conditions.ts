@@ -1,6 +1,8 @@
 /**
  * Sky conditions of a lineup search: how dark the sky must be and what Moon is acceptable.
  */
+import { assertFiniteInRange } from '../guards';
+import { MINUTES_PER_DAY } from '../units';
 
 /**
  * The Moon rule: `'down'` (upper limb below the horizon, standard refraction) or the Moon allowed
@@ -29,6 +31,21 @@ export interface ResolvedConditions {
 export const DEFAULT_SUN_MAX_ALT_DEG = -18;
 /** Default shortest lineup, minutes. */
 export const DEFAULT_MIN_DURATION_MIN = 5;
+/** Lowest Sun limit accepted, deg. */
+const MIN_SUN_MAX_ALT_DEG = -30;
+/** Highest Sun limit accepted, deg (the horizon). */
+const MAX_SUN_MAX_ALT_DEG = 0;
+
+/**
+ * The Sun limit of a search or a dark-window computation: the given one or the default, checked.
+ * @param sunMaxAltDeg - Highest geometric altitude of the Sun's centre, deg, -30..0; undefined for
+ *   {@link DEFAULT_SUN_MAX_ALT_DEG}.
+ * @returns The limit, deg.
+ * @throws RangeError on NaN or a value outside -30..0.
+ */
+export function resolveSunMaxAltDeg(sunMaxAltDeg: number | undefined): number {
+  return assertFiniteInRange(sunMaxAltDeg ?? DEFAULT_SUN_MAX_ALT_DEG, 'conditions.sunMaxAltDeg', MIN_SUN_MAX_ALT_DEG, MAX_SUN_MAX_ALT_DEG);
+}
 
 /**
  * Checks a Moon rule.
@@ -48,15 +65,9 @@ export function checkMoonCondition(moon: unknown): MoonCondition {
  * @throws RangeError on NaN or out-of-range values.
  */
 export function resolveConditions(conditions: LineupConditions = {}): ResolvedConditions {
-  const sunMaxAltDeg = conditions.sunMaxAltDeg ?? DEFAULT_SUN_MAX_ALT_DEG;
-  if (!Number.isFinite(sunMaxAltDeg) || sunMaxAltDeg < -30 || sunMaxAltDeg > 0) {
-    throw new RangeError('conditions.sunMaxAltDeg must be a finite number in -30..0');
-  }
+  const sunMaxAltDeg = resolveSunMaxAltDeg(conditions.sunMaxAltDeg);
   const moon = checkMoonCondition(conditions.moon ?? 'down');
-  const minDurationMin = conditions.minDurationMin ?? DEFAULT_MIN_DURATION_MIN;
-  if (!Number.isFinite(minDurationMin) || minDurationMin < 0 || minDurationMin > 1440) {
-    throw new RangeError('conditions.minDurationMin must be a finite number in 0..1440');
-  }
+  const minDurationMin = assertFiniteInRange(conditions.minDurationMin ?? DEFAULT_MIN_DURATION_MIN, 'conditions.minDurationMin', 0, MINUTES_PER_DAY);
   return { sunMaxAltDeg, moon, minDurationMin };
 }
 

@@ -5,14 +5,14 @@
  * Definitions of the Sun and Moon quantities: see siteSky.ts.
  */
 import type { ObserverSite } from '../schemas/geometry';
-import { checkMoonCondition, DEFAULT_SUN_MAX_ALT_DEG, type MoonCondition } from './conditions';
+import { checkMoonCondition, resolveSunMaxAltDeg, type MoonCondition } from './conditions';
 import { diurnalIntervalsBelowZero, intervalsFromNodes } from './diurnalEvents';
 import { intersectIntervals, unionIntervals, type FlatIntervals } from './intervals';
 import { refineExtremum } from './roots';
 import { SiteSky } from './siteSky';
 import { checkedRange, unixMsToUtDays, utDaysToUnixMs } from './time';
+import { RAD_PER_DEG } from '../units';
 
-const DEG = Math.PI / 180;
 /** Nominal rate of the Sun's hour angle, rad/day. */
 const SUN_HOUR_ANGLE_RATE = 2 * Math.PI;
 /** Nominal rate of the Moon's hour angle, rad/day (one lunar day is about 24 h 50 min). */
@@ -49,7 +49,7 @@ export interface DarkWindowSet {
  * @param from - Start, UT days; @param to - End, UT days (> from).
  */
 export function sunBelowIntervals(sky: SiteSky, sunMaxAltDeg: number, from: number, to: number): FlatIntervals {
-  const sinLimit = Math.sin(sunMaxAltDeg * DEG);
+  const sinLimit = Math.sin(sunMaxAltDeg * RAD_PER_DEG);
   return diurnalIntervalsBelowZero(
     { value: (t) => sky.sunSinAltitude(t) - sinLimit, hourAngle: (t) => sky.sunHourAngleRad(t), rateRadPerDay: SUN_HOUR_ANGLE_RATE },
     sky.latDeg,
@@ -140,10 +140,7 @@ export function computeDarkWindows(
   conditions: { sunMaxAltDeg?: number; moon?: MoonCondition } = {},
 ): DarkWindowSet {
   const { fromMs, toMs } = checkedRange(fromUtc, toUtc);
-  const sunMaxAltDeg = conditions.sunMaxAltDeg ?? DEFAULT_SUN_MAX_ALT_DEG;
-  if (!Number.isFinite(sunMaxAltDeg) || sunMaxAltDeg < -30 || sunMaxAltDeg > 0) {
-    throw new RangeError('conditions.sunMaxAltDeg must be a finite number in -30..0');
-  }
+  const sunMaxAltDeg = resolveSunMaxAltDeg(conditions.sunMaxAltDeg);
   const moon = checkMoonCondition(conditions.moon ?? 'down');
   const sky = new SiteSky(site);
   const flat = darkIntervals(sky, sunMaxAltDeg, moon, unixMsToUtDays(fromMs), unixMsToUtDays(toMs));

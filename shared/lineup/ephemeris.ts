@@ -20,6 +20,7 @@
  */
 import { Body, GeoMoon, GeoVector, MakeTime, RotateVector, Rotation_EQJ_EQD, SiderealTime } from 'astronomy-engine';
 import { evalChebyshev, evalChebyshev3, fitChebyshev } from './chebyshev';
+import { normalizeDegrees180, RAD_PER_DEG } from '../units';
 
 /** Length of one Sun table segment, days. */
 export const SUN_SEGMENT_DAYS = 32;
@@ -31,7 +32,6 @@ export const MOON_SEGMENT_DAYS = 12;
 export const MOON_COEFFICIENTS = 16;
 
 const TWO_PI = 2 * Math.PI;
-const DEG_TO_RAD = Math.PI / 180;
 
 const sunSegments = new Map<number, Float64Array>();
 const moonSegments = new Map<number, Float64Array>();
@@ -55,18 +55,13 @@ export function earthRotationUnwrappedRad(utDays: number): number {
   return TWO_PI * (0.779057273264 + 0.00273781191135448 * utDays + utDays);
 }
 
-function wrapDeg180(deg: number): number {
-  const w = (((deg + 180) % 360) + 360) % 360;
-  return w - 180;
-}
-
 function sampleSun(ut: number, out: Float64Array): void {
   const time = MakeTime(ut);
   const v = RotateVector(Rotation_EQJ_EQD(time), GeoVector(Body.Sun, time, true));
   out[0] = v.x;
   out[1] = v.y;
   out[2] = v.z;
-  out[3] = wrapDeg180(15 * SiderealTime(time) - 360 * earthRotationTurns(ut));
+  out[3] = normalizeDegrees180(15 * SiderealTime(time) - 360 * earthRotationTurns(ut));
   const g = RotateVector(Rotation_EQJ_EQD(time), GeoVector(Body.Sun, time, false));
   out[4] = g.x;
   out[5] = g.y;
@@ -164,7 +159,7 @@ export function siderealOffsetDeg(utDays: number): number {
  * @param utDays - UT days since J2000.
  */
 export function apparentSiderealUnwrappedRad(utDays: number): number {
-  return earthRotationUnwrappedRad(utDays) + siderealOffsetDeg(utDays) * DEG_TO_RAD;
+  return earthRotationUnwrappedRad(utDays) + siderealOffsetDeg(utDays) * RAD_PER_DEG;
 }
 
 /**
@@ -172,7 +167,7 @@ export function apparentSiderealUnwrappedRad(utDays: number): number {
  * @param utDays - UT days since J2000.
  */
 export function apparentSiderealRad(utDays: number): number {
-  const rad = TWO_PI * earthRotationTurns(utDays) + siderealOffsetDeg(utDays) * DEG_TO_RAD;
+  const rad = TWO_PI * earthRotationTurns(utDays) + siderealOffsetDeg(utDays) * RAD_PER_DEG;
   return rad < 0 ? rad + TWO_PI : rad >= TWO_PI ? rad - TWO_PI : rad;
 }
 
@@ -188,7 +183,7 @@ export function sunGeocentricAndSidereal(utDays: number, out: Float64Array): num
   const seg = sunSegment(index);
   const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
   evalChebyshev3(seg, 0, SUN_COEFFICIENTS, x, out);
-  return TWO_PI * earthRotationTurns(utDays) + evalChebyshev(seg, 3 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x) * DEG_TO_RAD;
+  return TWO_PI * earthRotationTurns(utDays) + evalChebyshev(seg, 3 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x) * RAD_PER_DEG;
 }
 
 /** Number of fitted segments held in the cache (Sun, Moon), for benchmarks. */

@@ -27,8 +27,9 @@ import { directionAt, type PlaceNodes } from './apparentPlace';
 import { earthRotationUnwrappedRad, siderealOffsetDeg } from './ephemeris';
 import { appendMerging, type FlatIntervals } from './intervals';
 import { geometricAltitudeDeg } from './refraction';
+import { assertFiniteInRange, assertPositiveUpTo } from '../guards';
+import { RAD_PER_DEG } from '../units';
 
-const DEG = Math.PI / 180;
 const TWO_PI = 2 * Math.PI;
 
 /** Length of a sidereal day in solar days (the cycle of the hour-angle solution). */
@@ -40,11 +41,10 @@ export const SIDEREAL_DAY_DAYS = 0.9972695663;
  */
 export function checkFrame(frame: Frame): void {
   if (frame === null || typeof frame !== 'object') throw new RangeError('frame must be an object');
-  const { azimuthDeg, halfWidthDeg, bottomAltDeg, topAltDeg } = frame;
-  if (!Number.isFinite(azimuthDeg) || azimuthDeg < 0 || azimuthDeg > 360) throw new RangeError('frame.azimuthDeg must be a finite number in 0..360');
-  if (!Number.isFinite(halfWidthDeg) || halfWidthDeg <= 0 || halfWidthDeg > 180) throw new RangeError('frame.halfWidthDeg must be a finite number in (0, 180]');
-  if (!Number.isFinite(bottomAltDeg) || bottomAltDeg < -90 || bottomAltDeg > 90) throw new RangeError('frame.bottomAltDeg must be a finite number in -90..90');
-  if (!Number.isFinite(topAltDeg) || topAltDeg < -90 || topAltDeg > 90) throw new RangeError('frame.topAltDeg must be a finite number in -90..90');
+  assertFiniteInRange(frame.azimuthDeg, 'frame.azimuthDeg', 0, 360);
+  assertPositiveUpTo(frame.halfWidthDeg, 'frame.halfWidthDeg', 180);
+  const bottomAltDeg = assertFiniteInRange(frame.bottomAltDeg, 'frame.bottomAltDeg', -90, 90);
+  const topAltDeg = assertFiniteInRange(frame.topAltDeg, 'frame.topAltDeg', -90, 90);
   if (!(topAltDeg > bottomAltDeg)) throw new RangeError('frame.topAltDeg must be above frame.bottomAltDeg');
 }
 
@@ -81,11 +81,11 @@ export interface FrameGeometry {
  * @param latDeg - Site latitude, -90..90; @param lonDeg - Site longitude, -180..180.
  */
 export function frameGeometry(frame: Frame, latDeg: number, lonDeg: number): FrameGeometry {
-  const azimuthRad = frame.azimuthDeg * DEG;
-  const halfWidthRad = frame.halfWidthDeg * DEG;
+  const azimuthRad = frame.azimuthDeg * RAD_PER_DEG;
+  const halfWidthRad = frame.halfWidthDeg * RAD_PER_DEG;
   const whole = frame.halfWidthDeg >= 180;
-  const sinLat = Math.sin(latDeg * DEG);
-  const cosLat = Math.cos(latDeg * DEG);
+  const sinLat = Math.sin(latDeg * RAD_PER_DEG);
+  const cosLat = Math.cos(latDeg * RAD_PER_DEG);
   const edges = whole
     ? []
     : [azimuthRad - halfWidthRad, azimuthRad + halfWidthRad].map((a) => {
@@ -97,15 +97,15 @@ export function frameGeometry(frame: Frame, latDeg: number, lonDeg: number): Fra
   return {
     sinLat,
     cosLat,
-    lonRad: lonDeg * DEG,
+    lonRad: lonDeg * RAD_PER_DEG,
     azimuthRad,
     cosAzimuth: Math.cos(azimuthRad),
     sinAzimuth: Math.sin(azimuthRad),
     halfWidthRad: whole ? Math.PI : halfWidthRad,
     cosHalfWidth: whole ? -1 : Math.cos(halfWidthRad),
     edges,
-    sinBottom: Math.sin(geometricAltitudeDeg(frame.bottomAltDeg) * DEG),
-    sinTop: Math.sin(geometricAltitudeDeg(frame.topAltDeg) * DEG),
+    sinBottom: Math.sin(geometricAltitudeDeg(frame.bottomAltDeg) * RAD_PER_DEG),
+    sinTop: Math.sin(geometricAltitudeDeg(frame.topAltDeg) * RAD_PER_DEG),
     bottomAltDeg: frame.bottomAltDeg,
     topAltDeg: frame.topAltDeg,
   };
@@ -307,7 +307,7 @@ export class TargetTrack {
 
   /** Unwrapped local apparent sidereal angle at t, rad. */
   localSidereal(t: number): number {
-    return earthRotationUnwrappedRad(t) + siderealOffsetDeg(t) * DEG + this.lonRad;
+    return earthRotationUnwrappedRad(t) + siderealOffsetDeg(t) * RAD_PER_DEG + this.lonRad;
   }
 
   /** Hour angle at t, rad, on an arbitrary branch (updates sinDec/cosDec/ra). */

@@ -5,6 +5,8 @@ import type { EquatorialJ2000, Frame, ObserverSite } from '../schemas/geometry';
 import { placeNodes, targetNodeDirections } from './apparentPlace';
 import { checkFrame, frameGeometry, framePassageIntervals, TargetTrack } from './framePassage';
 import { checkSite } from './siteSky';
+import { assertEquatorialJ2000 } from '../sky/guards';
+import { RAD_PER_DEG } from '../units';
 import { checkedRange, unixMsToUtDays, utDaysToUnixMs } from './time';
 
 /** A UTC interval. */
@@ -26,13 +28,12 @@ export interface TimeInterval {
 export function computeFramePassages(frame: Frame, site: ObserverSite, target: EquatorialJ2000, fromUtc: Date, toUtc: Date): TimeInterval[] {
   checkFrame(frame);
   checkSite(site);
-  if (!Number.isFinite(target?.raHours) || target.raHours < 0 || target.raHours >= 24) throw new RangeError('target.raHours must be a finite number in [0, 24)');
-  if (!Number.isFinite(target.decDeg) || target.decDeg < -90 || target.decDeg > 90) throw new RangeError('target.decDeg must be a finite number in -90..90');
+  assertEquatorialJ2000(target, 'target');
   const { fromMs, toMs } = checkedRange(fromUtc, toUtc);
   const from = unixMsToUtDays(fromMs);
   const to = unixMsToUtDays(toMs);
   const nodes = placeNodes(from, to);
-  const track = new TargetTrack(nodes, targetNodeDirections(nodes, target), (site.lon * Math.PI) / 180);
+  const track = new TargetTrack(nodes, targetNodeDirections(nodes, target), site.lon * RAD_PER_DEG);
   const flat = framePassageIntervals(frameGeometry(frame, site.lat, site.lon), track, from, to);
   const out: TimeInterval[] = [];
   for (let i = 0; i < flat.length; i += 2) out.push({ start: new Date(Math.round(utDaysToUnixMs(flat[i]!))), end: new Date(Math.round(utDaysToUnixMs(flat[i + 1]!))) });

@@ -19,6 +19,8 @@
  * of the project, not a published standard.
  */
 
+import { assertFiniteInRange } from '../guards';
+
 /** Inputs of the score, all at the lineup's peak. */
 export interface ScoreInputs {
   /** Centring C, 0..1. */
@@ -55,9 +57,11 @@ export function centringFromOffsets(u: number, v: number): number {
  * @throws RangeError on NaN input.
  */
 export function lineupScore(s: ScoreInputs): number {
-  if (!(Number.isFinite(s.centring) && Number.isFinite(s.durationMin) && Number.isFinite(s.sunAltitudeDeg) && Number.isFinite(s.moonAltitudeDeg) && Number.isFinite(s.moonIllumination))) {
-    throw new RangeError('score inputs must be finite numbers');
-  }
+  assertFiniteInRange(s.centring, 'centring');
+  assertFiniteInRange(s.durationMin, 'durationMin');
+  assertFiniteInRange(s.sunAltitudeDeg, 'sunAltitudeDeg');
+  assertFiniteInRange(s.moonAltitudeDeg, 'moonAltitudeDeg');
+  assertFiniteInRange(s.moonIllumination, 'moonIllumination');
   const c = Math.min(1, Math.max(0, s.centring));
   const d = 1 - Math.exp(-Math.max(0, s.durationMin) / SCORE_DURATION_SCALE_MIN);
   const k = Math.min(1, Math.max(0, (-12 - s.sunAltitudeDeg) / 6));

@@ -18,8 +18,9 @@ import { minimizeBrent } from './roots';
 import { centringFromOffsets, lineupScore } from './score';
 import { SiteSky } from './siteSky';
 import { checkedRange, unixMsToUtDays, utDaysToUnixMs } from './time';
+import { assertEquatorialJ2000 } from '../sky/guards';
+import { angleDifferenceDeg, MINUTES_PER_DAY, RAD_PER_DEG } from '../units';
 
-const DEG = Math.PI / 180;
 const TWO_PI = 2 * Math.PI;
 
 /** Most targets in one search. */
@@ -65,12 +66,6 @@ export interface SearchOptions {
   darkWindows?: DarkWindowSet | readonly DarkWindowSet[];
 }
 
-function checkTarget(t: EquatorialJ2000, i: number): void {
-  if (t === null || typeof t !== 'object') throw new RangeError(`targets[${i}] must be an object`);
-  if (!Number.isFinite(t.raHours) || t.raHours < 0 || t.raHours >= 24) throw new RangeError(`targets[${i}].raHours must be a finite number in [0, 24)`);
-  if (!Number.isFinite(t.decDeg) || t.decDeg < -90 || t.decDeg > 90) throw new RangeError(`targets[${i}].decDeg must be a finite number in -90..90`);
-}
-
 /** Dark intervals (UT days) over [from, to] from cached sets, after checking they fit the search. */
 function darkFromSets(sets: readonly DarkWindowSet[], site: ObserverSite, c: ResolvedConditions, fromMs: number, toMs: number): FlatIntervals {
   const sorted = [...sets].sort((a, b) => a.fromMs - b.fromMs);
@@ -80,7 +75,7 @@ function darkFromSets(sets: readonly DarkWindowSet[], site: ObserverSite, c: Res
     if (set.sunMaxAltDeg !== c.sunMaxAltDeg || !sameMoonCondition(set.moon, c.moon)) {
       throw new RangeError('options.darkWindows were computed for other conditions');
     }
-    const dLon = Math.abs((((set.site.lon - site.lon) % 360) + 540) % 360 - 180);
+    const dLon = Math.abs(angleDifferenceDeg(set.site.lon, site.lon));
     if (Math.abs(set.site.lat - site.lat) > DARK_WINDOW_SITE_TOLERANCE_DEG || !(dLon <= DARK_WINDOW_SITE_TOLERANCE_DEG)) {
       throw new RangeError('options.darkWindows were computed for another site');
     }
@@ -114,11 +109,11 @@ class Centring {
     const up = g.sinLat * sinDec + g.cosLat * cosDec * c;
     const east = -cosDec * Math.sin(h);
     const north = g.cosLat * sinDec - g.sinLat * cosDec * c;
-    const geo = Math.asin(Math.max(-1, Math.min(1, up))) / DEG;
+    const geo = Math.asin(Math.max(-1, Math.min(1, up))) / RAD_PER_DEG;
     const alt = apparentAltitudeDeg(geo);
     let az = Math.atan2(east, north);
     if (az < 0) az += TWO_PI;
-    this.azimuthDeg = az / DEG;
+    this.azimuthDeg = az / RAD_PER_DEG;
     this.altitudeDeg = alt;
     let dAz = az - g.azimuthRad;
     dAz -= TWO_PI * Math.round(dAz / TWO_PI);
@@ -152,7 +147,7 @@ export function searchLineups(
   checkFrame(frame);
   const list: readonly EquatorialJ2000[] = Array.isArray(targets) ? targets : [targets as EquatorialJ2000];
   if (list.length === 0 || list.length > MAX_TARGETS) throw new RangeError(`targets must hold 1..${MAX_TARGETS} positions`);
-  list.forEach(checkTarget);
+  list.forEach((t, i) => assertEquatorialJ2000(t, `targets[${i}]`));
   const { fromMs, toMs } = checkedRange(fromUtc, toUtc);
   const c = resolveConditions(conditions);
   const sky = new SiteSky(site);
@@ -166,7 +161,7 @@ export function searchLineups(
   const g = frameGeometry(frame, site.lat, site.lon);
   const nodes = placeNodes(from, to);
   const centring = new Centring(g);
-  const minDays = c.minDurationMin / 1440;
+  const minDays = c.minDurationMin / MINUTES_PER_DAY;
   const lineups: Lineup[] = [];
   for (let ti = 0; ti < list.length; ti++) {
     const track = new TargetTrack(nodes, targetNodeDirections(nodes, list[ti]!), sky.lonRad);
@@ -287,7 +282,7 @@ function describeLineup(targetIndex: number, s: number, e: number, track: Target
   const centringAtPeak = centring.at(track.sinDec, track.cosDec, hPeak);
   const sunAltitudeDeg = sky.sunAltitudeDeg(tPeak);
   const moon = sky.moonAt(tPeak);
-  const durationMin = (e - s) * 1440;
+  const durationMin = (e - s) * MINUTES_PER_DAY;
   return {
     targetIndex,
     // Rounded to the millisecond (a Date would truncate), so range-clipped ends equal the range.

@@ -15,6 +15,9 @@
  */
 import type { ObserverSite } from '../schemas/geometry';
 import { KM_PER_AU } from 'astronomy-engine';
+import { assertFiniteInRange } from '../guards';
+import { assertSite, MAX_ELEVATION_M, MIN_ELEVATION_M } from '../sky/guards';
+import { RAD_PER_DEG } from '../units';
 import { apparentSiderealRad, moonGeocentricOfDate, sunGeocentricAndSidereal, sunGeocentricOfDate, sunGeometricOfDate } from './ephemeris';
 
 /** astronomy-engine's Earth equatorial radius, km. */
@@ -26,23 +29,19 @@ export const MOON_RADIUS_KM = 1738.1;
 /** Standard refraction at the horizon, degrees (34 arcmin, USNO / astronomy-engine). */
 export const HORIZON_REFRACTION_DEG = 34 / 60;
 
-const DEG = Math.PI / 180;
 const MOON_RADIUS_AU = MOON_RADIUS_KM / KM_PER_AU;
-const SIN_HORIZON_REFRACTION = Math.sin(HORIZON_REFRACTION_DEG * DEG);
-const COS_HORIZON_REFRACTION = Math.cos(HORIZON_REFRACTION_DEG * DEG);
+const SIN_HORIZON_REFRACTION = Math.sin(HORIZON_REFRACTION_DEG * RAD_PER_DEG);
+const COS_HORIZON_REFRACTION = Math.cos(HORIZON_REFRACTION_DEG * RAD_PER_DEG);
 
 /**
  * Checks an observer site: finite latitude -90..90, longitude -180..180, elevation -500..9000 m.
+ * Unlike the sky modules' {@link assertSite}, which reads a missing elevation as sea level, the
+ * engine requires `elevationM` (callers pass sites parsed by the geometry schema, which fills it).
  * @throws RangeError otherwise.
  */
 export function checkSite(site: ObserverSite): void {
-  if (site === null || typeof site !== 'object') throw new RangeError('site must be an object');
-  const { lat, lon, elevationM } = site;
-  if (!Number.isFinite(lat) || lat < -90 || lat > 90) throw new RangeError('site.lat must be a finite number in -90..90');
-  if (!Number.isFinite(lon) || lon < -180 || lon > 180) throw new RangeError('site.lon must be a finite number in -180..180');
-  if (!Number.isFinite(elevationM) || elevationM < -500 || elevationM > 9000) {
-    throw new RangeError('site.elevationM must be a finite number in -500..9000 m');
-  }
+  assertSite(site);
+  assertFiniteInRange(site.elevationM, 'site.elevationM', MIN_ELEVATION_M, MAX_ELEVATION_M);
 }
 
 /** Sun and Moon seen from one site; all times are UT days since J2000. */
@@ -66,8 +65,8 @@ export class SiteSky {
   constructor(site: ObserverSite) {
     checkSite(site);
     this.latDeg = site.lat;
-    this.latRad = site.lat * DEG;
-    this.lonRad = site.lon * DEG;
+    this.latRad = site.lat * RAD_PER_DEG;
+    this.lonRad = site.lon * RAD_PER_DEG;
     this.sinLat = Math.sin(this.latRad);
     this.cosLat = Math.cos(this.latRad);
     const c = 1 / Math.hypot(this.cosLat, EARTH_AXIS_RATIO * this.sinLat);
@@ -109,7 +108,7 @@ export class SiteSky {
 
   /** Sun's geometric topocentric centre altitude, deg. @param ut - UT days since J2000. */
   sunAltitudeDeg(ut: number): number {
-    return Math.asin(this.sunSinAltitude(ut)) / DEG;
+    return Math.asin(this.sunSinAltitude(ut)) / RAD_PER_DEG;
   }
 
   /** Sine of the Moon's geometric topocentric centre altitude. @param ut - UT days since J2000. */
@@ -120,7 +119,7 @@ export class SiteSky {
 
   /** Moon's geometric topocentric centre altitude, deg. @param ut - UT days since J2000. */
   moonAltitudeDeg(ut: number): number {
-    return Math.asin(this.moonSinAltitude(ut)) / DEG;
+    return Math.asin(this.moonSinAltitude(ut)) / RAD_PER_DEG;
   }
 
   /**
@@ -139,7 +138,7 @@ export class SiteSky {
   /** Refracted upper-limb altitude of the Moon, deg (negative: down). @param ut - UT days since J2000. */
   moonUpperLimbDeg(ut: number): number {
     const alt = this.moonAltitudeDeg(ut);
-    return alt + Math.asin(MOON_RADIUS_AU / this.lastDistanceAu) / DEG + HORIZON_REFRACTION_DEG;
+    return alt + Math.asin(MOON_RADIUS_AU / this.lastDistanceAu) / RAD_PER_DEG + HORIZON_REFRACTION_DEG;
   }
 
   /**
@@ -151,7 +150,7 @@ export class SiteSky {
     const sinAlt = this.moonSinAltitude(ut);
     const q = MOON_RADIUS_AU / this.lastDistanceAu;
     const down = sinAlt + q * COS_HORIZON_REFRACTION + Math.sqrt(1 - q * q) * SIN_HORIZON_REFRACTION < 0;
-    return { altitudeDeg: Math.asin(sinAlt) / DEG, down, illumination: this.illuminationOfVec(ut) };
+    return { altitudeDeg: Math.asin(sinAlt) / RAD_PER_DEG, down, illumination: this.illuminationOfVec(ut) };
   }
 
   /** Illuminated fraction for the Moon vector already in `this.vec` at time ut. */

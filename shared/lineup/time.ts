@@ -2,9 +2,8 @@
  * Time scale used inside the lineup engine: Universal Time as fractional days since the J2000
  * epoch (2000-01-01T12:00:00Z), the same `ut` scale astronomy-engine uses (it equates UTC and UT1).
  */
-
-/** Milliseconds in one day. */
-export const MS_PER_DAY = 86_400_000;
+import { assertValidDate } from '../guards';
+import { MS_PER_DAY } from '../units';
 
 /** Unix time in milliseconds of the J2000 epoch, 2000-01-01T12:00:00Z. */
 export const J2000_UNIX_MS = Date.UTC(2000, 0, 1, 12, 0, 0);
@@ -43,8 +42,7 @@ export function utDaysToUnixMs(utDays: number): number {
  * @throws RangeError when the Date is invalid or outside 1900-01-01..2200-01-01.
  */
 export function checkedUnixMs(date: Date, name: string): number {
-  const ms = date instanceof Date ? date.getTime() : Number.NaN;
-  if (!Number.isFinite(ms)) throw new RangeError(`${name} must be a valid Date`);
+  const ms = assertValidDate(date, name).getTime();
   if (ms < ENGINE_MIN_UNIX_MS || ms > ENGINE_MAX_UNIX_MS) {
     throw new RangeError(`${name} must lie between 1900-01-01 and 2200-01-01 UTC`);
   }
