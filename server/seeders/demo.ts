@@ -42,8 +42,8 @@ export const demoSightlines: readonly DemoSightline[] = [
     ownerEmail: 'tomas@demo.gnomon.test',
     input: {
       name: 'Kestrel Stack from the south cove',
-      vantage: { lat: 50.5790, lon: -4.9140, elevationM: 3, cameraHeightM: 1.5 },
-      landmark: { lat: 50.5712, lon: -4.9085, baseElevationM: 0, heightM: 38, widthM: 14 },
+      vantage: { lat: 50.5755, lon: -4.9115, elevationM: 3, cameraHeightM: 1.5 },
+      landmark: { lat: 50.5712, lon: -4.9085, baseElevationM: 0, heightM: 38, widthM: 60 },
       bandHeightDeg: 20,
       targetId: 'galactic-centre',
     },
@@ -91,9 +91,9 @@ export const demoSightlines: readonly DemoSightline[] = [
     input: {
       name: 'Curlew Sea Cave mouth',
       vantage: { lat: 52.9712, lon: -9.4300, elevationM: 1, cameraHeightM: 1.2 },
-      landmark: { lat: 52.9703, lon: -9.4318, baseElevationM: 0, heightM: 12, widthM: 8 },
+      landmark: { lat: 52.9703, lon: -9.4318, baseElevationM: 0, heightM: 12, widthM: 20 },
       bandHeightDeg: 20,
-      targetId: 'ngc7000',
+      targetId: 'm42',
     },
     tideRule: { mode: 'around-low', hoursBefore: 1.5, hoursAfter: 1.5, note: 'Only the two hours around low water, and not in a swell.' },
     tides: { firstLowMinutes: 5 * 60 + 30, meanRangeM: 3.9 },

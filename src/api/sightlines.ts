@@ -6,6 +6,7 @@ import {
   type SightlineInputBody,
   type sightlineUpdateSchema,
 } from '../../shared/schemas/sightline';
+import { lineupSearchResponseSchema, type LineupSearchResponse } from '../../shared/schemas/lineup';
 import { request } from './client';
 
 /** A partial change of a sightline as sent (a rename is `{ name }`). */
@@ -31,4 +32,13 @@ export async function updateSightline(id: string, change: SightlineChange): Prom
 
 export async function deleteSightline(id: string): Promise<void> {
   await request('DELETE', path(id));
+}
+
+/** The next good lineups of a saved sightline over the coming year (its own target unless given). */
+export async function fetchNextLineups(id: string, options: { target?: string; count?: number } = {}): Promise<LineupSearchResponse> {
+  const query = new URLSearchParams();
+  if (options.target) query.set('target', options.target);
+  if (options.count) query.set('count', String(options.count));
+  const suffix = query.size ? `?${query}` : '';
+  return request('GET', `${path(id)}/next-lineups${suffix}`, { schema: lineupSearchResponseSchema });
 }

@@ -8,8 +8,8 @@ import { useSightlinesStore } from '@/stores/sightlines';
 import { usePlannerStore } from '@/stores/planner';
 import { useFieldErrors } from './useFieldErrors';
 
-/** Shown in the "Next lineup" column until the server computes it. */
-export const NEXT_LINEUP_PLACEHOLDER = 'Not computed yet';
+/** Shown in the "Next lineup" column while the server computes it. */
+export const NEXT_LINEUP_PLACEHOLDER = 'Computing…';
 
 /** Columns, search and actions (open, rename, delete) of the sightlines table. */
 export function useSightlineTable() {
@@ -21,6 +21,12 @@ export function useSightlineTable() {
   const search = ref('');
   const loadError = ref('');
 
+  /** Start of the next lineup for sorting; sightlines without one sort last. */
+  function nextStartMs(s: Sightline): number {
+    const next = store.nextLineup[s.id];
+    return next && 'lineup' in next && next.lineup ? Date.parse(next.lineup.start) : Number.MAX_SAFE_INTEGER;
+  }
+
   const rows = computed(() => {
     const q = search.value.trim().toLowerCase();
     return q ? store.sightlines.filter((s) => s.name.toLowerCase().includes(q)) : store.sightlines;
@@ -30,6 +36,7 @@ export function useSightlineTable() {
     loadError.value = '';
     try {
       await store.refresh();
+      void store.loadNextLineups();
     } catch (error) {
       loadError.value = (error as Error).message;
     }
@@ -100,7 +107,15 @@ export function useSightlineTable() {
     { title: 'Target', key: 'targetId', render: (row) => findTarget(row.targetId)?.name ?? row.targetId },
     {
       title: 'Next lineup', key: 'nextLineup',
-      render: () => h('span', { class: 'placeholder', title: 'The next good night will show here once lineup search is available.' }, NEXT_LINEUP_PLACEHOLDER),
+      sorter: (a, b) => nextStartMs(a) - nextStartMs(b),
+      render: (row) => {
+        const next = store.nextLineup[row.id];
+        if (!next) return h('span', { class: 'placeholder' }, NEXT_LINEUP_PLACEHOLDER);
+        if ('error' in next) return h('span', { class: 'placeholder', title: next.error }, 'Unavailable');
+        if (!next.lineup) return h('span', { class: 'placeholder' }, 'None in the next 12 months');
+        return h('span', { 'data-testid': 'next-lineup', title: 'Peak time, and how good the lineup is' },
+          `${formatLocalTime(new Date(next.lineup.peak), row.timezone)} · ${Math.round(next.lineup.score * 100)} %`);
+      },
     },
     {
       title: 'Created', key: 'createdAt', width: 190,

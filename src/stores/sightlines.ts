@@ -1,6 +1,7 @@
 import { defineStore } from 'pinia';
 import { ref } from 'vue';
 import type { Sightline, SightlineInputBody } from '../../shared/schemas/sightline';
+import type { Lineup } from '../../shared/schemas/lineup';
 import * as sightlinesApi from '@/api/sightlines';
 import type { SightlineChange } from '@/api/sightlines';
 
@@ -10,6 +11,8 @@ export const useSightlinesStore = defineStore('sightlines', () => {
   const loading = ref(false);
   /** True once the list came back at least once. */
   const loaded = ref(false);
+  /** Next good lineup per sightline id: undefined while loading, null when none in the coming year. */
+  const nextLineup = ref<Record<string, { lineup: Lineup | null } | { error: string }>>({});
 
   function upsert(sightline: Sightline): void {
     const others = sightlines.value.filter((s) => s.id !== sightline.id);
@@ -50,5 +53,17 @@ export const useSightlinesStore = defineStore('sightlines', () => {
     sightlines.value = sightlines.value.filter((s) => s.id !== id);
   }
 
-  return { sightlines, loading, loaded, refresh, get, create, update, remove };
+  /** Asks the server for each listed sightline's next good lineup, one after another. */
+  async function loadNextLineups(): Promise<void> {
+    for (const s of sightlines.value) {
+      try {
+        const result = await sightlinesApi.fetchNextLineups(s.id, { count: 1 });
+        nextLineup.value = { ...nextLineup.value, [s.id]: { lineup: result.lineups[0] ?? null } };
+      } catch (error) {
+        nextLineup.value = { ...nextLineup.value, [s.id]: { error: (error as Error).message } };
+      }
+    }
+  }
+
+  return { sightlines, loading, loaded, nextLineup, refresh, get, create, update, remove, loadNextLineups };
 });
