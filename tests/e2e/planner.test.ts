@@ -185,7 +185,8 @@ describe('the planner in the browser, with no map tiles', () => {
     await page.getByTestId('sightline-table').waitFor();
     const table = page.getByTestId('sightline-table');
     await expect.poll(() => table.getByText(name).count()).toBe(1);
-    expect(await table.textContent()).toContain('Not computed yet');
+    // Each row's next good lineup arrives from the server: a time with a score, or "none".
+    await expect.poll(async () => /\d{4}-\d{2}-\d{2} \d{2}:\d{2} .* · \d+ %|None in the next 12 months/.test((await table.textContent()) ?? ''), { timeout: 20_000 }).toBe(true);
     await page.locator('input[aria-label="Search sightlines by name"]').fill(name.slice(-13));
     await expect.poll(() => page.locator('[data-testid="sightline-table"] tbody tr').count()).toBe(1);
     await page.locator('[data-testid="sightline-table"]').screenshot({ path: screenshotPath('sightlines-table') });
