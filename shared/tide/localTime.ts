@@ -8,9 +8,8 @@
  * tide-times parser has to report both cases per line.
  */
 import { IANAZone } from 'luxon';
-
-const MS_PER_MINUTE = 60_000;
-const MS_PER_DAY = 86_400_000;
+import { assertIntegerInRange } from '../guards';
+import { MS_PER_DAY, MS_PER_MINUTE } from '../units';
 
 /**
  * Zone names already found valid: luxon's check builds an Intl formatter each time (about 0.2 ms),
@@ -51,12 +50,6 @@ export function isValidTimeZone(timeZone: unknown): timeZone is string {
   const valid = IANAZone.isValidZone(timeZone);
   if (valid && knownValidZones.size < MAX_CACHED_ZONES) knownValidZones.add(timeZone);
   return valid;
-}
-
-function assertIntegerInRange(value: number, name: string, min: number, max: number): void {
-  if (!Number.isInteger(value) || value < min || value > max) {
-    throw new RangeError(`${name} must be an integer between ${min} and ${max} (got ${String(value)})`);
-  }
 }
 
 /**

@@ -3,6 +3,7 @@
  * times, two highs or two lows in a row, events too close together or too far apart, a high lower
  * than its neighbouring low.
  */
+import { MS_PER_MINUTE } from '../units';
 import type { TideEvent } from './schemas';
 
 /**
@@ -48,8 +49,6 @@ export interface TideSequenceCheck {
   /** Doubtful neighbours, on the later event's line. */
   warnings: SequenceIssue[];
 }
-
-const MS_PER_MINUTE = 60_000;
 
 /** Formats a duration in minutes as e.g. '6 h 12 min' or '45 min'. */
 export function formatDurationMin(minutes: number): string {

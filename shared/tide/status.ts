@@ -19,7 +19,8 @@
  * - **Reachable** instants: decided and reachable by the rule; **cut-off** instants: decided and
  *   not reachable; all others are **unknown**.
  */
-import { assertValidDate } from '../sky/guards';
+import { assertValidDate, parseOrThrow } from '../guards';
+import { MS_PER_HOUR, MS_PER_MINUTE } from '../units';
 import { MAX_TIDE_EVENT_GAP_MIN } from './sequence';
 import { mergeIntervals, overlapMs, subtractIntervals, type MsInterval } from './intervals';
 import { tideEventSchema, tideRuleSchema, type TideEvent, type TideRule } from './schemas';
@@ -66,22 +67,6 @@ export interface LineupTideStatus {
   cutOffAt: Date | null;
 }
 
-const MS_PER_HOUR = 3_600_000;
-const MS_PER_MINUTE = 60_000;
-
-function firstIssue(error: { issues: readonly { path: readonly PropertyKey[]; message: string }[] }): string {
-  const issue = error.issues[0];
-  if (issue === undefined) return 'invalid';
-  const path = issue.path.map(String).join('.');
-  return path === '' ? issue.message : `${path}: ${issue.message}`;
-}
-
-function checkedRule(rule: unknown): TideRule {
-  const parsed = tideRuleSchema.safeParse(rule);
-  if (!parsed.success) throw new RangeError(`Invalid tide rule: ${firstIssue(parsed.error)}`);
-  return parsed.data;
-}
-
 /** Validated event instants (ms, sorted, repeats removed) of each kind. */
 function checkedInstants(events: unknown): { allMs: number[]; highMs: number[]; lowMs: number[] } {
   if (!Array.isArray(events)) throw new RangeError('Tide events must be an array');
@@ -91,11 +76,10 @@ function checkedInstants(events: unknown): { allMs: number[]; highMs: number[]; 
   const highMs: number[] = [];
   const lowMs: number[] = [];
   events.forEach((e: unknown, i) => {
-    const parsed = tideEventSchema.safeParse(e);
-    if (!parsed.success) throw new RangeError(`Invalid tide event ${i}: ${firstIssue(parsed.error)}`);
-    const ms = Date.parse(parsed.data.at);
+    const event = parseOrThrow(`tide event ${i}`, tideEventSchema, e);
+    const ms = Date.parse(event.at);
     if (!Number.isFinite(ms)) throw new RangeError(`Invalid tide event ${i}: at: not a valid time`);
-    (parsed.data.kind === 'high' ? highMs : lowMs).push(ms);
+    (event.kind === 'high' ? highMs : lowMs).push(ms);
   });
   const unique = (xs: number[]) => [...new Set(xs)].sort((a, b) => a - b);
   return { allMs: unique([...highMs, ...lowMs]), highMs: unique(highMs), lowMs: unique(lowMs) };
@@ -127,7 +111,7 @@ function toTideIntervals(list: readonly MsInterval[]): TideInterval[] {
  * @throws RangeError on an invalid rule or event
  */
 export function tideAccess(rule: TideRule, events: readonly TideEvent[]): TideAccess {
-  const r = checkedRule(rule);
+  const r = parseOrThrow('tide rule', tideRuleSchema, rule);
   const { allMs, highMs, lowMs } = checkedInstants(events);
   const beforeMs = r.hoursBefore * MS_PER_HOUR;
   const afterMs = r.hoursAfter * MS_PER_HOUR;
