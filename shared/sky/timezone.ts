@@ -1,8 +1,9 @@
 /**
- * Time zones of sites: the IANA zone for a coordinate (tz-lookup) and local-time conversions
- * (luxon), so every sky event can be shown in the site's own clock time.
+ * Time zones of sites: the IANA zone for a coordinate (tz-lookup), the checks of zone names and
+ * local calendar dates that every module uses (the tide-times parser too), and local-time
+ * conversions (luxon), so every sky event can be shown in the site's own clock time.
  */
-import { DateTime } from 'luxon';
+import { DateTime, IANAZone } from 'luxon';
 import tzLookup from 'tz-lookup';
 import { assertFiniteInRange, assertValidDate } from '../guards';
 import { MS_PER_MINUTE, MS_PER_SECOND } from '../units';
@@ -59,14 +60,50 @@ export function timeZoneForSite(lat: number, lon: number): string {
 }
 
 /**
- * Checks an IANA zone name (as known to the runtime's ICU data) and returns it.
- * @throws RangeError when the zone is unknown
+ * Zone names already found valid: luxon's check builds an Intl formatter each time (about 0.2 ms),
+ * which would dominate parsing a long tide table. Bounded (there are about 600 IANA names).
+ */
+const knownValidZones = new Set<string>();
+const MAX_CACHED_ZONES = 1000;
+
+/**
+ * Whether `timeZone` is an IANA zone name known to the runtime's time-zone data (e.g.
+ * 'Europe/London', 'UTC', 'Etc/GMT-3'). luxon's other zone specifiers ('local', 'system',
+ * 'UTC+3') are not IANA names and are not accepted: a site's clock is never the machine's own.
+ * @param timeZone the value to check
+ * @returns true for a known IANA zone name
+ */
+export function isValidTimeZone(timeZone: unknown): timeZone is string {
+  if (typeof timeZone !== 'string' || timeZone.length === 0) return false;
+  if (knownValidZones.has(timeZone)) return true;
+  const valid = IANAZone.isValidZone(timeZone);
+  if (valid && knownValidZones.size < MAX_CACHED_ZONES) knownValidZones.add(timeZone);
+  return valid;
+}
+
+/**
+ * Checks an IANA zone name (see {@link isValidTimeZone}) and returns it.
+ * @param timeZone the value to check
+ * @returns the zone name
+ * @throws RangeError when it is not a known IANA zone name
  */
 export function assertTimeZone(timeZone: unknown): string {
-  if (typeof timeZone !== 'string' || !DateTime.now().setZone(timeZone).isValid) {
+  if (!isValidTimeZone(timeZone)) {
     throw new RangeError(`timeZone must be a valid IANA zone (got ${String(timeZone)})`);
   }
   return timeZone;
+}
+
+/**
+ * Whether year/month/day name a real calendar date (proleptic Gregorian), e.g. not 2027-02-30.
+ * @param year 1..9999 (0 is accepted as 1 BC); month 1..12; day 1..31
+ * @returns true for a date on the calendar
+ */
+export function isCalendarDate(year: number, month: number, day: number): boolean {
+  if (![year, month, day].every(Number.isInteger) || month < 1 || month > 12 || day < 1) return false;
+  const d = new Date(Date.UTC(2000, month - 1, day));
+  d.setUTCFullYear(year);
+  return d.getUTCMonth() === month - 1 && d.getUTCDate() === day;
 }
 
 /**
@@ -77,8 +114,7 @@ export function assertLocalDate(date: unknown): LocalDateString {
   if (typeof date !== 'string') throw new RangeError('date must be a string YYYY-MM-DD');
   const m = LOCAL_DATE_RE.exec(date);
   if (!m) throw new RangeError(`date must be YYYY-MM-DD (got ${date})`);
-  const dt = DateTime.fromObject({ year: Number(m[1]), month: Number(m[2]), day: Number(m[3]) }, { zone: 'UTC' });
-  if (!dt.isValid || dt.toISODate() !== date) throw new RangeError(`date is not a calendar date (got ${date})`);
+  if (!isCalendarDate(Number(m[1]), Number(m[2]), Number(m[3]))) throw new RangeError(`date is not a calendar date (got ${date})`);
   return date;
 }
 

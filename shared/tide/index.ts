@@ -28,11 +28,11 @@ export {
   SEMIDIURNAL_HALF_PERIOD_MIN,
 } from './sequence';
 export {
-  isValidTimeZone,
   resolveLocalTime,
   type LocalTimeResolution,
   type LocalWallTime,
 } from './localTime';
+export { isValidTimeZone } from '../sky/timezone';
 export {
   lineupTideStatus,
   lineupTideStatusFromAccess,

@@ -9,14 +9,8 @@
  */
 import { IANAZone } from 'luxon';
 import { assertIntegerInRange } from '../guards';
+import { assertTimeZone, isCalendarDate } from '../sky/timezone';
 import { MS_PER_DAY, MS_PER_MINUTE } from '../units';
-
-/**
- * Zone names already found valid: luxon's check builds an Intl formatter each time (about 0.2 ms),
- * which would dominate parsing a long table. Bounded (there are about 600 IANA names).
- */
-const knownValidZones = new Set<string>();
-const MAX_CACHED_ZONES = 1000;
 
 /** A local calendar date and wall-clock time (second resolution). */
 export interface LocalWallTime {
@@ -41,29 +35,6 @@ export type LocalTimeResolution =
   | { kind: 'nonexistent' };
 
 /**
- * Whether `timeZone` is an IANA zone name known to the runtime's time-zone data
- * (e.g. 'Europe/London', 'UTC').
- */
-export function isValidTimeZone(timeZone: unknown): timeZone is string {
-  if (typeof timeZone !== 'string' || timeZone.length === 0) return false;
-  if (knownValidZones.has(timeZone)) return true;
-  const valid = IANAZone.isValidZone(timeZone);
-  if (valid && knownValidZones.size < MAX_CACHED_ZONES) knownValidZones.add(timeZone);
-  return valid;
-}
-
-/**
- * Whether year/month/day name a real calendar date (proleptic Gregorian), e.g. not 2027-02-30.
- * @param year 1..9999; month 1..12; day 1..31
- */
-export function isCalendarDate(year: number, month: number, day: number): boolean {
-  if (![year, month, day].every(Number.isInteger) || month < 1 || month > 12 || day < 1) return false;
-  const d = new Date(Date.UTC(2000, month - 1, day));
-  d.setUTCFullYear(year);
-  return d.getUTCMonth() === month - 1 && d.getUTCDate() === day;
-}
-
-/**
  * Resolves a local wall time in `timeZone` to UTC.
  *
  * The candidate UTC offsets are the zone's offsets one day before and one day after the wall time
@@ -77,7 +48,7 @@ export function isCalendarDate(year: number, month: number, day: number): boolea
  * @throws RangeError on an unknown zone, a field out of range or a date not on the calendar
  */
 export function resolveLocalTime(wall: LocalWallTime, timeZone: string): LocalTimeResolution {
-  if (!isValidTimeZone(timeZone)) throw new RangeError(`Unknown IANA time zone: ${String(timeZone)}`);
+  assertTimeZone(timeZone);
   assertIntegerInRange(wall.year, 'year', 1, 9999);
   assertIntegerInRange(wall.month, 'month', 1, 12);
   assertIntegerInRange(wall.day, 'day', 1, 31);

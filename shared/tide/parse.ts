@@ -6,7 +6,8 @@
  */
 import { DateTime } from 'luxon';
 import { MAX_TIDE_HEIGHT_M, MIN_TIDE_HEIGHT_M, type TideEvent, type TideKind } from './schemas';
-import { isCalendarDate, isValidTimeZone, resolveLocalTime } from './localTime';
+import { assertTimeZone, isCalendarDate } from '../sky/timezone';
+import { resolveLocalTime } from './localTime';
 import { checkTideSequence, type LinedTideEvent } from './sequence';
 
 /** Most lines a pasted text may have (about three years of semidiurnal tides). */
@@ -179,7 +180,7 @@ export function parseTideTimes(text: string, timeZone: string): TideParseResult 
   if (text.length > MAX_TIDE_TEXT_CHARS) {
     throw new RangeError(`Tide times text must be at most ${MAX_TIDE_TEXT_CHARS} characters (got ${text.length})`);
   }
-  if (!isValidTimeZone(timeZone)) throw new RangeError(`Unknown IANA time zone: ${String(timeZone)}`);
+  assertTimeZone(timeZone);
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/);
   if (lines.length > MAX_TIDE_TEXT_LINES) {
     throw new RangeError(`Tide times text must have at most ${MAX_TIDE_TEXT_LINES} lines (got ${lines.length})`);

@@ -106,6 +106,16 @@ describe('guards', () => {
     expect(() => assertTimeZone(zone)).toThrow(RangeError);
   });
 
+  // luxon reads these as zones too, but they are not IANA names (the machine's own zone, a fixed
+  // offset): a site's time zone is always an IANA name, as tz-lookup gives it.
+  it.each(['local', 'system', 'UTC+3'])('rejects the luxon specifier %j, which is not an IANA zone', (zone) => {
+    expect(() => assertTimeZone(zone)).toThrow(RangeError);
+  });
+
+  it.each(['UTC', 'Europe/Dublin', 'Etc/GMT-3', 'Australia/Sydney'])('accepts the IANA zone %j', (zone) => {
+    expect(assertTimeZone(zone)).toBe(zone);
+  });
+
   it('rejects an invalid instant', () => {
     expect(() => toLocalInstant(new Date(Number.NaN), 'UTC')).toThrow(RangeError);
     expect(() => formatLocalTime(new Date(Number.NaN), 'UTC')).toThrow(RangeError);
