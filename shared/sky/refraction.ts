@@ -29,8 +29,21 @@ export function refractionForTrueAltitudeDeg(trueAltitudeDeg: number): number {
   return forwardDeg(trueAltitudeDeg);
 }
 
+/**
+ * astronomy-engine's refraction lift `Refraction('normal', h)` as it is, with no guard and no
+ * clamp: exactly what its `Horizon(..., 'normal')` adds to a true altitude, slightly negative
+ * above a true altitude of about 89.89 deg (-0.116 arcsec at the zenith). Only for hot paths that
+ * have checked their input and must match Horizon to the bit (the lineup engine); everything else
+ * uses {@link refractionForTrueAltitudeDeg}, which clamps at 0.
+ * @param trueAltitudeDeg true altitude in degrees, -90..90 (not checked; 0 outside)
+ * @returns refraction in degrees (about 0.48 deg at a true altitude of 0)
+ */
+export function unclampedRefractionDeg(trueAltitudeDeg: number): number {
+  return Refraction('normal', trueAltitudeDeg);
+}
+
 function forwardDeg(trueAltitudeDeg: number): number {
-  return Math.max(0, Refraction('normal', trueAltitudeDeg));
+  return Math.max(0, unclampedRefractionDeg(trueAltitudeDeg));
 }
 
 /** Stopping tolerance of the inversion, degrees (3.6e-9 arcsec). */

@@ -5,6 +5,7 @@ import { computeFramePassages } from '../../../shared/lineup';
 import { directionAt, exactDirection, placeNodes, targetNodeDirections } from '../../../shared/lineup/apparentPlace';
 import { checkFrame, frameGeometry, hourAngleArcs } from '../../../shared/lineup/framePassage';
 import { apparentAltitudeDeg, geometricAltitudeDeg } from '../../../shared/lineup/refraction';
+import { apparentFromTrueAltitudeDeg, trueFromApparentAltitudeDeg } from '../../../shared/sky/refraction';
 import { oracleInFrame, scanIntervals } from './oracle';
 
 const ARCSEC_PER_RAD = 206264.806;
@@ -36,6 +37,24 @@ describe('refraction of the frame band', () => {
     }
     expect(() => geometricAltitudeDeg(Number.NaN)).toThrow(RangeError);
     expect(() => geometricAltitudeDeg(91)).toThrow(RangeError);
+  });
+
+  // The engine's fast path and the sky module's guarded functions share astronomy-engine's lift;
+  // the sky module clamps it at 0 above a true altitude of 89.89 deg, where it is at most 0.116
+  // arcsec below 0 (Refraction('normal', 90) = -0.1157 arcsec, computed).
+  it('gives the same apparent altitudes as the sky module below 89.89 deg, and within 0.12 arcsec above', () => {
+    for (let h = -90; h <= 90; h += 0.01) {
+      const difference = apparentAltitudeDeg(h) - apparentFromTrueAltitudeDeg(h);
+      if (h < 89.89) expect(difference).toBe(0);
+      else expect(Math.abs(difference)).toBeLessThan(0.12 / 3600);
+    }
+  });
+
+  it('inverts like the sky module to 1e-9 deg below 89.89 deg, and within 0.12 arcsec above', () => {
+    for (let apparent = -90; apparent <= 90; apparent += 0.01) {
+      const difference = Math.abs(geometricAltitudeDeg(apparent) - trueFromApparentAltitudeDeg(apparent));
+      expect(difference).toBeLessThan(apparent < 89.89 ? 1e-9 : 0.12 / 3600);
+    }
   });
 });
 
