@@ -8,14 +8,16 @@
  *   (its flattening and equatorial radius), so the Moon's parallax (about 1 deg) is exact;
  * - the Moon is down when its upper limb, lifted by the standard horizontal refraction of 34 arcmin,
  *   is below the astronomical horizon: centre altitude + asin(R_moon / topocentric distance)
- *   + 34/60 deg < 0, with R_moon = 1738.1 km (astronomy-engine's constants; at sea level this is
- *   exactly its moonrise/moonset definition);
+ *   + 34/60 deg < 0, with R_moon = MOON_RISE_SET_RADIUS_KM = 1738.1 km and HORIZON_REFRACTION_DEG
+ *   from sky/constants.ts (astronomy-engine's constants; at sea level this is exactly its
+ *   moonrise/moonset definition, and the night report's);
  * - the Moon's illuminated fraction is (1 + cos i) / 2 with i the Sun-Moon-Earth phase angle from
  *   geometric positions, as in astronomy-engine's `Illumination(Body.Moon, t).phase_fraction`.
  */
 import type { ObserverSite } from '../schemas/geometry';
 import { KM_PER_AU } from 'astronomy-engine';
 import { assertFiniteInRange } from '../guards';
+import { HORIZON_REFRACTION_DEG, MOON_RISE_SET_RADIUS_KM } from '../sky/constants';
 import { assertSite, MAX_ELEVATION_M, MIN_ELEVATION_M } from '../sky/guards';
 import { RAD_PER_DEG } from '../units';
 import { apparentSiderealRad, moonGeocentricOfDate, sunGeocentricAndSidereal, sunGeocentricOfDate, sunGeometricOfDate } from './ephemeris';
@@ -24,12 +26,8 @@ import { apparentSiderealRad, moonGeocentricOfDate, sunGeocentricAndSidereal, su
 export const EARTH_EQUATORIAL_RADIUS_KM = 6378.1366;
 /** astronomy-engine's Earth polar-to-equatorial axis ratio (1 - flattening). */
 export const EARTH_AXIS_RATIO = 0.996647180302104;
-/** Lunar equatorial radius used for the upper limb, km (astronomy-engine's value). */
-export const MOON_RADIUS_KM = 1738.1;
-/** Standard refraction at the horizon, degrees (34 arcmin, USNO / astronomy-engine). */
-export const HORIZON_REFRACTION_DEG = 34 / 60;
 
-const MOON_RADIUS_AU = MOON_RADIUS_KM / KM_PER_AU;
+const MOON_RADIUS_AU = MOON_RISE_SET_RADIUS_KM / KM_PER_AU;
 const SIN_HORIZON_REFRACTION = Math.sin(HORIZON_REFRACTION_DEG * RAD_PER_DEG);
 const COS_HORIZON_REFRACTION = Math.cos(HORIZON_REFRACTION_DEG * RAD_PER_DEG);
 

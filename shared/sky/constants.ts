@@ -9,11 +9,30 @@ export const CIVIL_TWILIGHT_ALTITUDE_DEG = -6;
 export const NAUTICAL_TWILIGHT_ALTITUDE_DEG = -12;
 export const ASTRONOMICAL_TWILIGHT_ALTITUDE_DEG = -18;
 
-/** Standard refraction at the horizon used for rise/set events: 34 arcmin, in degrees. */
+/**
+ * Standard refraction at the horizon used for rise/set events: 34 arcmin, in degrees (USNO;
+ * astronomy-engine's REFRACTION_NEAR_HORIZON, which its SearchRiseSet uses at sea level).
+ */
 export const HORIZON_REFRACTION_DEG = 34 / 60;
 
-/** Mean radius of the Moon (IAU), in kilometres; gives its apparent semidiameter. */
-export const MOON_RADIUS_KM = 1737.4;
+/*
+ * Two radii of the Moon, on purpose: they answer two questions. Both are astronomy-engine
+ * 2.1.19's own constants (astronomy.js: MOON_MEAN_RADIUS_KM, MOON_EQUATORIAL_RADIUS_KM).
+ */
+
+/**
+ * Mean radius of the Moon, km (IAU; astronomy-engine's MOON_MEAN_RADIUS_KM, the one it uses for
+ * the Moon's apparent diameter): gives the apparent semidiameter shown for the Moon's size.
+ */
+export const MOON_MEAN_RADIUS_KM = 1737.4;
+
+/**
+ * Radius of the Moon for moonrise, moonset and "the Moon is down", km: its equatorial radius,
+ * which astronomy-engine's SearchRiseSet puts on the upper limb (MOON_EQUATORIAL_RADIUS_KM). The
+ * night report and the lineup engine both use it, so they mean the same moonrise as
+ * SearchRiseSet; it lifts the limb 0.4 arcsec above the mean radius's.
+ */
+export const MOON_RISE_SET_RADIUS_KM = 1738.1;
 
 /** Astronomical unit in kilometres (IAU 2012). */
 export const AU_KM = 149_597_870.7;

@@ -7,7 +7,8 @@
  *   sea-level horizon;
  * - civil, nautical, astronomical twilight: the Sun's centre at -6, -12, -18 deg true altitude;
  * - moonrise/moonset: the Moon's upper limb on the horizon with standard refraction, i.e. its
- *   topocentric centre at -(34' + semidiameter) true altitude.
+ *   topocentric centre at -(34' + semidiameter) true altitude, the semidiameter from the radius
+ *   astronomy-engine's SearchRiseSet uses ({@link MOON_RISE_SET_RADIUS_KM}, 1738.1 km).
  * Events are solved with {@link findThresholdCrossings} (sampling, extremum refinement, bisection
  * to 10 ms, and a check on exact altitudes 1 s either side), not with astronomy-engine's
  * SearchAltitude, which can return a false crossing on short dark nights.
@@ -22,7 +23,7 @@ import {
   AU_KM,
   CIVIL_TWILIGHT_ALTITUDE_DEG,
   HORIZON_REFRACTION_DEG,
-  MOON_RADIUS_KM,
+  MOON_RISE_SET_RADIUS_KM,
   NAUTICAL_TWILIGHT_ALTITUDE_DEG,
   SUNRISE_ALTITUDE_DEG,
 } from './constants';
@@ -121,7 +122,7 @@ function moonLimbAboveHorizonDeg(observer: Observer, ms: number): number {
   const time = MakeTime(new Date(ms));
   const eq = Equator(Body.Moon, time, observer, true, true);
   const alt = Horizon(time, observer, eq.ra, eq.dec).altitude;
-  const semidiameterDeg = Math.asin(MOON_RADIUS_KM / (eq.dist * AU_KM)) * DEG_PER_RAD;
+  const semidiameterDeg = Math.asin(MOON_RISE_SET_RADIUS_KM / (eq.dist * AU_KM)) * DEG_PER_RAD;
   return alt + semidiameterDeg + HORIZON_REFRACTION_DEG;
 }
 

@@ -30,7 +30,7 @@ import {
 import type { EquatorialJ2000, ObserverSite } from '../schemas/geometry';
 import { assertFiniteInRange, assertValidDate } from '../guards';
 import { DEG_PER_RAD, normalizeDegrees360 } from '../units';
-import { AU_KM, MOON_RADIUS_KM } from './constants';
+import { AU_KM, MOON_MEAN_RADIUS_KM } from './constants';
 import { assertEquatorialJ2000, assertSite } from './guards';
 
 /** The bodies this module places: the Sun and the Moon. */
@@ -308,7 +308,7 @@ export function moonGeocentric(date: Date): MoonGeocentric {
  */
 export function moonSemidiameterDeg(distanceKm: number): number {
   assertFiniteInRange(distanceKm, 'distanceKm', 300_000, 450_000);
-  return Math.asin(MOON_RADIUS_KM / distanceKm) * DEG_PER_RAD;
+  return Math.asin(MOON_MEAN_RADIUS_KM / distanceKm) * DEG_PER_RAD;
 }
 
 /**
