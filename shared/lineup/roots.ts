@@ -5,6 +5,11 @@
  * Own code: each is a few dozen lines, and the event search needs what generic npm solvers do not
  * offer (an extremum search that stops early once the sign of the extreme value is certain, a root
  * search seeded with a model guess and slope).
+ *
+ * Not merged with sky/crossings.ts either: that module scans a function it knows nothing about
+ * (sampling, golden-section extrema, bisection, a check on exact values either side of each
+ * crossing) for the night report and the charts; these are the engine's fast solvers for one
+ * bracket at a time, where the bracket and a first guess come from the event search.
  */
 
 /** Time tolerance for roots, days (about 0.01 s). */

@@ -7,6 +7,12 @@
  * extremum between samples is refined with a golden-section search (so a graze that dips past the
  * threshold between two samples is not missed), each sign change is bisected, and every crossing
  * is checked again on exact values a moment before and after before it is returned.
+ *
+ * Not merged with the lineup engine's solvers (lineup/roots.ts), which do another job: they solve
+ * one bracketed root or extremum at a time, in UT days, seeded with a guess and a slope from a
+ * model of the engine's tabled functions, and stop early once a sign is certain. This module
+ * knows nothing of the function: it scans it by sampling, for the night report and the charts,
+ * and its results (10 ms bisection, 0.5 s extrema) are part of what those report.
  */
 import { assertFiniteInRange } from '../guards';
 import { MS_PER_MINUTE } from '../units';
