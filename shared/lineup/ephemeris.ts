@@ -33,9 +33,6 @@ export const MOON_COEFFICIENTS = 16;
 
 const TWO_PI = 2 * Math.PI;
 
-const sunSegments = new Map<number, Float64Array>();
-const moonSegments = new Map<number, Float64Array>();
-
 /**
  * Earth rotation angle (IERS 2003) as astronomy-engine computes it, in turns 0..1.
  * @param utDays - UT days since J2000, finite.
@@ -76,34 +73,49 @@ function sampleMoon(ut: number, out: Float64Array): void {
   out[2] = v.z;
 }
 
-let lastSunIndex = Number.NaN;
-let lastSun: Float64Array = new Float64Array(0);
-let lastMoonIndex = Number.NaN;
-let lastMoon: Float64Array = new Float64Array(0);
+/**
+ * One body's table: segments fitted on first use and kept, plus the last segment used (most
+ * look-ups hit the same segment as the one before, so they skip the Map).
+ */
+class SegmentTable {
+  private readonly segments = new Map<number, Float64Array>();
+  private lastIndex = Number.NaN;
+  private last: Float64Array = new Float64Array(0);
 
-function sunSegment(index: number): Float64Array {
-  if (index === lastSunIndex) return lastSun;
-  let seg = sunSegments.get(index);
-  if (!seg) {
-    seg = fitChebyshev(sampleSun, index * SUN_SEGMENT_DAYS, (index + 1) * SUN_SEGMENT_DAYS, SUN_COEFFICIENTS, 7);
-    sunSegments.set(index, seg);
+  constructor(
+    private readonly sample: (ut: number, out: Float64Array) => void,
+    private readonly segmentDays: number,
+    private readonly coefficientCount: number,
+    private readonly componentCount: number,
+  ) {}
+
+  /** The coefficients of segment `index` (covering index * segmentDays onwards). */
+  segment(index: number): Float64Array {
+    if (index === this.lastIndex) return this.last;
+    let seg = this.segments.get(index);
+    if (!seg) {
+      seg = fitChebyshev(this.sample, index * this.segmentDays, (index + 1) * this.segmentDays, this.coefficientCount, this.componentCount);
+      this.segments.set(index, seg);
+    }
+    this.lastIndex = index;
+    this.last = seg;
+    return seg;
   }
-  lastSunIndex = index;
-  lastSun = seg;
-  return seg;
+
+  /** Number of fitted segments held. */
+  get size(): number {
+    return this.segments.size;
+  }
+
+  /** Forgets every fitted segment. */
+  clear(): void {
+    this.segments.clear();
+    this.lastIndex = Number.NaN;
+  }
 }
 
-function moonSegment(index: number): Float64Array {
-  if (index === lastMoonIndex) return lastMoon;
-  let seg = moonSegments.get(index);
-  if (!seg) {
-    seg = fitChebyshev(sampleMoon, index * MOON_SEGMENT_DAYS, (index + 1) * MOON_SEGMENT_DAYS, MOON_COEFFICIENTS, 3);
-    moonSegments.set(index, seg);
-  }
-  lastMoonIndex = index;
-  lastMoon = seg;
-  return seg;
-}
+const sunTable = new SegmentTable(sampleSun, SUN_SEGMENT_DAYS, SUN_COEFFICIENTS, 7);
+const moonTable = new SegmentTable(sampleMoon, MOON_SEGMENT_DAYS, MOON_COEFFICIENTS, 3);
 
 /**
  * Geocentric apparent Sun vector in EQD, from the table.
@@ -112,7 +124,7 @@ function moonSegment(index: number): Float64Array {
  */
 export function sunGeocentricOfDate(utDays: number, out: Float64Array): void {
   const index = Math.floor(utDays / SUN_SEGMENT_DAYS);
-  const seg = sunSegment(index);
+  const seg = sunTable.segment(index);
   const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
   evalChebyshev3(seg, 0, SUN_COEFFICIENTS, x, out);
 }
@@ -124,7 +136,7 @@ export function sunGeocentricOfDate(utDays: number, out: Float64Array): void {
  */
 export function sunGeometricOfDate(utDays: number, out: Float64Array): void {
   const index = Math.floor(utDays / SUN_SEGMENT_DAYS);
-  const seg = sunSegment(index);
+  const seg = sunTable.segment(index);
   const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
   evalChebyshev3(seg, 4 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x, out);
 }
@@ -136,7 +148,7 @@ export function sunGeometricOfDate(utDays: number, out: Float64Array): void {
  */
 export function moonGeocentricOfDate(utDays: number, out: Float64Array): void {
   const index = Math.floor(utDays / MOON_SEGMENT_DAYS);
-  const seg = moonSegment(index);
+  const seg = moonTable.segment(index);
   const x = (2 * (utDays - index * MOON_SEGMENT_DAYS)) / MOON_SEGMENT_DAYS - 1;
   evalChebyshev3(seg, 0, MOON_COEFFICIENTS, x, out);
 }
@@ -149,7 +161,7 @@ export function moonGeocentricOfDate(utDays: number, out: Float64Array): void {
  */
 export function siderealOffsetDeg(utDays: number): number {
   const index = Math.floor(utDays / SUN_SEGMENT_DAYS);
-  const seg = sunSegment(index);
+  const seg = sunTable.segment(index);
   const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
   return evalChebyshev(seg, 3 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x);
 }
@@ -180,7 +192,7 @@ export function apparentSiderealRad(utDays: number): number {
  */
 export function sunGeocentricAndSidereal(utDays: number, out: Float64Array): number {
   const index = Math.floor(utDays / SUN_SEGMENT_DAYS);
-  const seg = sunSegment(index);
+  const seg = sunTable.segment(index);
   const x = (2 * (utDays - index * SUN_SEGMENT_DAYS)) / SUN_SEGMENT_DAYS - 1;
   evalChebyshev3(seg, 0, SUN_COEFFICIENTS, x, out);
   return TWO_PI * earthRotationTurns(utDays) + evalChebyshev(seg, 3 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x) * RAD_PER_DEG;
@@ -188,13 +200,11 @@ export function sunGeocentricAndSidereal(utDays: number, out: Float64Array): num
 
 /** Number of fitted segments held in the cache (Sun, Moon), for benchmarks. */
 export function ephemerisCacheSize(): { sun: number; moon: number } {
-  return { sun: sunSegments.size, moon: moonSegments.size };
+  return { sun: sunTable.size, moon: moonTable.size };
 }
 
 /** Empties the segment cache (benchmarks use it to time a cold start). */
 export function clearEphemerisCache(): void {
-  sunSegments.clear();
-  moonSegments.clear();
-  lastSunIndex = Number.NaN;
-  lastMoonIndex = Number.NaN;
+  sunTable.clear();
+  moonTable.clear();
 }
