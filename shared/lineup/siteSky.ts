@@ -128,7 +128,11 @@ export class SiteSky {
    * @param ut - UT days since J2000.
    */
   moonLimbSin(ut: number): number {
-    const sinAlt = this.moonSinAltitude(ut);
+    return this.limbSinOfLast(this.moonSinAltitude(ut));
+  }
+
+  /** {@link SiteSky.moonLimbSin} from the sine of the centre altitude of the Moon just evaluated. */
+  private limbSinOfLast(sinAlt: number): number {
     const q = MOON_RADIUS_AU / this.lastDistanceAu;
     return sinAlt + q * COS_HORIZON_REFRACTION + Math.sqrt(1 - q * q) * SIN_HORIZON_REFRACTION;
   }
@@ -146,8 +150,7 @@ export class SiteSky {
    */
   moonAt(ut: number): { altitudeDeg: number; down: boolean; illumination: number } {
     const sinAlt = this.moonSinAltitude(ut);
-    const q = MOON_RADIUS_AU / this.lastDistanceAu;
-    const down = sinAlt + q * COS_HORIZON_REFRACTION + Math.sqrt(1 - q * q) * SIN_HORIZON_REFRACTION < 0;
+    const down = this.limbSinOfLast(sinAlt) < 0;
     return { altitudeDeg: Math.asin(sinAlt) / RAD_PER_DEG, down, illumination: this.illuminationOfVec(ut) };
   }
 
