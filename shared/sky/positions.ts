@@ -116,6 +116,11 @@ export function observerForSite(site: ObserverSite): Observer {
   return new Observer(s.lat, s.lon, s.elevationM);
 }
 
+/** astronomy-engine's refraction option for Horizon: 'normal' unless the caller turned refraction off. */
+function horizonRefraction(options: HorizontalOptions): 'normal' | undefined {
+  return options.refraction === false ? undefined : 'normal';
+}
+
 function bodyOf(body: SkyBody): Body {
   if (body === 'sun') return Body.Sun;
   if (body === 'moon') return Body.Moon;
@@ -151,7 +156,7 @@ export function bodyHorizontal(body: SkyBody, site: ObserverSite, date: Date, op
   const observer = observerForSite(site);
   const time = MakeTime(date);
   const eq = Equator(bodyOf(body), time, observer, true, true);
-  const hor = Horizon(time, observer, eq.ra, eq.dec, options.refraction === false ? undefined : 'normal');
+  const hor = Horizon(time, observer, eq.ra, eq.dec, horizonRefraction(options));
   return {
     azimuthDeg: normalizeDegrees360(hor.azimuth),
     altitudeDeg: hor.altitude,
@@ -209,7 +214,7 @@ export function horizontalFromEquatorOfDate(
   assertFiniteInRange(equatorOfDate?.decDeg, 'equatorOfDate.decDeg', -90, 90);
   assertValidDate(date, 'date');
   const observer = observerForSite(site);
-  const hor = Horizon(date, observer, equatorOfDate.raHours, equatorOfDate.decDeg, options.refraction === false ? undefined : 'normal');
+  const hor = Horizon(date, observer, equatorOfDate.raHours, equatorOfDate.decDeg, horizonRefraction(options));
   return {
     azimuthDeg: normalizeDegrees360(hor.azimuth),
     altitudeDeg: hor.altitude,
@@ -232,7 +237,7 @@ export function targetHorizontal(target: EquatorialJ2000, site: ObserverSite, da
   const observer = observerForSite(site);
   const time = MakeTime(date);
   const eq = rotateJ2000ToDate(t, time);
-  const hor = Horizon(time, observer, eq.raHours, eq.decDeg, options.refraction === false ? undefined : 'normal');
+  const hor = Horizon(time, observer, eq.raHours, eq.decDeg, horizonRefraction(options));
   return { azimuthDeg: normalizeDegrees360(hor.azimuth), altitudeDeg: hor.altitude, raHoursOfDate: eq.raHours, decDegOfDate: eq.decDeg };
 }
 
