@@ -1,0 +1,103 @@
+import { defineStore } from 'pinia';
+import { computed, ref } from 'vue';
+import { frameFromSightline, sightlineGeometry, type SightlineGeometry } from '../../shared/geo';
+import type { Frame, ObserverSite } from '../../shared/schemas/geometry';
+import type { Sightline } from '../../shared/schemas/sightline';
+import type { TideEvent, TideRule } from '../../shared/tide';
+import { getSightline } from '@/api/sightlines';
+import * as tidesApi from '@/api/tides';
+
+/** Warnings the server kept about a saved paste (they did not stop it). */
+export type TidePasteWarning = { line: number; text: string; message: string };
+
+/**
+ * The sightline a sightline page shows: the sightline with its geometry, its tide rule and its
+ * stored tide times. `tideRevision` goes up whenever the tide rule or tide times change, so lineup
+ * results (whose tide status depends on them) know to refresh.
+ */
+export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
+  const sightline = ref<Sightline | null>(null);
+  const loading = ref(false);
+  const loadError = ref('');
+  const tideEvents = ref<TideEvent[]>([]);
+  const tideRevision = ref(0);
+  let loadToken = 0;
+
+  const id = computed(() => sightline.value?.id ?? null);
+  const timeZone = computed(() => sightline.value?.timezone ?? 'UTC');
+
+  /** The camera for sky positions: ground elevation plus camera height, m. */
+  const site = computed<ObserverSite | null>(() => {
+    const s = sightline.value;
+    return s ? { lat: s.vantage.lat, lon: s.vantage.lon, elevationM: s.vantage.elevationM + s.vantage.cameraHeightM } : null;
+  });
+
+  /** The saved frame (saved band height); null when the geometry cannot be computed. */
+  const frame = computed<Frame | null>(() => {
+    const s = sightline.value;
+    if (!s) return null;
+    try {
+      return frameFromSightline(s.vantage, s.landmark, { bandHeightDeg: s.bandHeightDeg });
+    } catch {
+      return null;
+    }
+  });
+
+  const geometry = computed<SightlineGeometry | null>(() => {
+    const s = sightline.value;
+    if (!s) return null;
+    try {
+      return sightlineGeometry(s.vantage, s.landmark);
+    } catch {
+      return null;
+    }
+  });
+
+  /** Loads a sightline and its tide times (again when `force`). */
+  async function open(sightlineId: string, force = false): Promise<void> {
+    if (!force && sightline.value?.id === sightlineId && !loadError.value) return;
+    const token = ++loadToken;
+    loading.value = true;
+    loadError.value = '';
+    if (sightline.value?.id !== sightlineId) {
+      sightline.value = null;
+      tideEvents.value = [];
+    }
+    try {
+      const [s, tides] = await Promise.all([getSightline(sightlineId), tidesApi.getTideTimes(sightlineId)]);
+      if (token !== loadToken) return;
+      sightline.value = s;
+      tideEvents.value = tides.events;
+    } catch (error) {
+      if (token === loadToken) loadError.value = (error as Error).message;
+    } finally {
+      if (token === loadToken) loading.value = false;
+    }
+  }
+
+  function requireId(): string {
+    if (!id.value) throw new Error('No sightline is open');
+    return id.value;
+  }
+
+  async function saveTideRule(rule: TideRule | null): Promise<void> {
+    sightline.value = await tidesApi.putTideRule(requireId(), rule);
+    tideRevision.value += 1;
+  }
+
+  /** Saves pasted tide times (all or nothing); returns the server's warnings. */
+  async function pasteTideTimes(text: string): Promise<TidePasteWarning[]> {
+    const result = await tidesApi.pasteTideTimes(requireId(), text);
+    tideEvents.value = result.events;
+    tideRevision.value += 1;
+    return result.warnings;
+  }
+
+  async function clearTideTimes(): Promise<void> {
+    await tidesApi.clearTideTimes(requireId());
+    tideEvents.value = [];
+    tideRevision.value += 1;
+  }
+
+  return { sightline, loading, loadError, tideEvents, tideRevision, id, timeZone, site, frame, geometry, open, saveTideRule, pasteTideTimes, clearTideTimes };
+});
