@@ -2,7 +2,7 @@
  * Chart geometry for the night chart, its alt-az panel and the year view: pure functions from
  * shared/sky positions to sampled series, scales, SVG path data and calendar cells.
  */
-export { linearScale, linearTicks, niceStep, type LinearScale } from './scale';
+export { linearScale, linearTicks, niceStep, piecewiseLinearScale, type LinearScale } from './scale';
 export { bandRuns, intersectRuns, type MsInterval } from './intervals';
 export { localClock, localHourTicks, nightDateOf, NIGHT_STARTS_AT_LOCAL_HOUR, zoneLabelAt, type HourTick } from './localTime';
 export { skyBrightness, sunLimitCrossings, TWILIGHT_LIMITS_DEG, twilightSegments, type SkyBrightness, type SunLimitCrossing, type TwilightSegment } from './twilight';

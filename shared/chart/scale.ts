@@ -4,7 +4,7 @@
  */
 import { assertFiniteInRange } from '../sky/guards';
 
-/** A linear map from a data interval (domain) to a drawing interval (range). */
+/** A (piecewise) linear map from a data interval (domain) to a drawing interval (range). */
 export interface LinearScale {
   /** Data interval [d0, d1], d0 != d1 (either order). */
   readonly domain: readonly [number, number];
@@ -37,6 +37,46 @@ export function linearScale(domain: readonly [number, number], range: readonly [
     range: [r0, r1],
     map: (value) => r0 + (value - d0) * k,
     invert: (position) => (k === 0 ? d0 : d0 + (position - r0) / k),
+  };
+}
+
+/**
+ * A piecewise linear scale through matching stops: each stretch between two domain stops maps
+ * linearly onto the stretch between the matching range stops (e.g. -20..0 deg onto a quarter of
+ * a chart's height and 0..90 deg onto the rest). Values beyond the ends extrapolate the end pieces.
+ * @param domainStops - at least two finite data values, strictly increasing
+ * @param rangeStops - as many finite drawing positions, strictly monotonic (either direction)
+ * @returns the scale; `domain` and `range` are the end stops
+ * @throws RangeError on non-finite, non-monotonic or mismatched stops
+ */
+export function piecewiseLinearScale(domainStops: readonly number[], rangeStops: readonly number[]): LinearScale {
+  if (!Array.isArray(domainStops) || !Array.isArray(rangeStops) || domainStops.length < 2 || domainStops.length !== rangeStops.length) {
+    throw new RangeError('domainStops and rangeStops must be arrays of the same length, at least 2');
+  }
+  domainStops.forEach((d, i) => assertFiniteInRange(d, `domainStops[${i}]`));
+  rangeStops.forEach((r, i) => assertFiniteInRange(r, `rangeStops[${i}]`));
+  const rising = rangeStops[1]! > rangeStops[0]!;
+  for (let i = 1; i < domainStops.length; i++) {
+    if (!(domainStops[i]! > domainStops[i - 1]!)) throw new RangeError('domainStops must be strictly increasing');
+    if (rising ? !(rangeStops[i]! > rangeStops[i - 1]!) : !(rangeStops[i]! < rangeStops[i - 1]!)) throw new RangeError('rangeStops must be strictly monotonic');
+  }
+  const pieces = domainStops.slice(1).map((_, i) => linearScale([domainStops[i]!, domainStops[i + 1]!], [rangeStops[i]!, rangeStops[i + 1]!]));
+  const last = pieces.length - 1;
+  const pieceOfValue = (v: number) => {
+    let i = 0;
+    while (i < last && v > domainStops[i + 1]!) i++;
+    return pieces[i]!;
+  };
+  const pieceOfPosition = (p: number) => {
+    let i = 0;
+    while (i < last && (rising ? p > rangeStops[i + 1]! : p < rangeStops[i + 1]!)) i++;
+    return pieces[i]!;
+  };
+  return {
+    domain: [domainStops[0]!, domainStops[domainStops.length - 1]!],
+    range: [rangeStops[0]!, rangeStops[rangeStops.length - 1]!],
+    map: (value) => pieceOfValue(value).map(value),
+    invert: (position) => pieceOfPosition(position).invert(position),
   };
 }
 

@@ -18,6 +18,8 @@ const routes: RouteRecordRaw[] = [
   // The planner is the home page after sign-in; `?sightline=<id>` opens a saved sightline in it.
   { path: '/', name: 'home', component: () => import('@/views/PlannerView.vue'), meta: { requiresAuth: true, title: 'Planner' } },
   { path: '/sightlines', name: 'sightlines', component: () => import('@/views/SightlinesView.vue'), meta: { requiresAuth: true, title: 'Sightlines' } },
+  // One sightline: lineup search and results, night chart, year view, field notes and tides.
+  { path: '/sightlines/:id', name: 'sightline', component: () => import('@/views/SightlineView.vue'), meta: { requiresAuth: true, title: 'Sightline' } },
   { path: '/signin', name: 'signin', component: () => import('@/views/SignInView.vue'), meta: { guestOnly: true, title: 'Sign in' } },
   { path: '/register', name: 'register', component: () => import('@/views/RegisterView.vue'), meta: { guestOnly: true, title: 'Create account' } },
   { path: '/admin', name: 'admin', component: () => import('@/views/AdminView.vue'), meta: { requiresAuth: true, role: 'admin', title: 'Accounts' } },

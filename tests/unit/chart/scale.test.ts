@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { linearScale, linearTicks, niceStep } from '../../../shared/chart';
+import { linearScale, linearTicks, niceStep, piecewiseLinearScale } from '../../../shared/chart';
 
 describe('linearScale', () => {
   it('maps the domain ends onto the range ends and back, also with a reversed (SVG y) range', () => {
@@ -46,5 +46,41 @@ describe('niceStep and linearTicks', () => {
     [Number.NaN, 1, 5],
   ])('rejects min %s, max %s, maxTicks %s', (min, max, n) => {
     expect(() => niceStep(min, max, n)).toThrow(RangeError);
+  });
+});
+
+describe('piecewiseLinearScale', () => {
+  // -20..0 deg onto the bottom quarter of a 400 px plot (400..300), 0..90 deg onto the rest (300..0).
+  const y = piecewiseLinearScale([-20, 0, 90], [400, 300, 0]);
+
+  it.each([
+    [-20, 400],
+    [-10, 350],
+    [0, 300],
+    [45, 150],
+    [90, 0],
+    [-30, 450], // extrapolates the first piece
+  ])('maps %s deg to %s px and back', (deg, px) => {
+    expect(y.map(deg)).toBeCloseTo(px, 9);
+    expect(y.invert(px)).toBeCloseTo(deg, 9);
+  });
+
+  it('is monotonic across the stops', () => {
+    let previous = Infinity;
+    for (let deg = -20; deg <= 90; deg += 0.5) {
+      const px = y.map(deg);
+      expect(px).toBeLessThan(previous);
+      previous = px;
+    }
+  });
+
+  it.each([
+    [[0], [0]],
+    [[0, 1], [0]],
+    [[0, 0], [0, 1]],
+    [[0, 1, 2], [0, 2, 1]],
+    [[0, Number.NaN], [0, 1]],
+  ])('rejects domain stops %j with range stops %j', (d, r) => {
+    expect(() => piecewiseLinearScale(d, r)).toThrow(RangeError);
   });
 });
