@@ -8,8 +8,8 @@
  * a fraction of the Earth's). The elevation angle is atan((h - drop - eye) / d), d measured at sea
  * level. Against the exact geometry of a sphere of effective radius R / (1 - k) (measured, and
  * checked in tests/unit/geo/elevation.test.ts) this differs, up to 50 km, by less than 0.001 deg
- * where the angle is under 5 deg (the usual case), by less than 0.005 deg with eye and landmark
- * below 1000 m at any angle, and by up to 0.04 deg for mountain heights at steep angles (the
+ * where the angle is under 5 deg and the eye below 1000 m (the usual case), by less than 0.005 deg
+ * with eye and landmark below 1000 m at any angle, and by up to 0.04 deg for mountain heights at steep angles (the
  * horizontal run at height h is d (1 + h / R), which the formula ignores). All of it is well below
  * the uncertainty of k itself: 0.13 is a daytime average; it ranges from about 0 to 0.25, and
  * more over cold water at night.
