@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import { findTarget } from '../sky/catalogue';
+import { MS_PER_DAY } from '../units';
 import { equatorialJ2000Schema, frameSchema, landmarkSchema, latitudeSchema, longitudeSchema, vantageSchema } from './geometry';
 
 /** Longest search range, in days (ten years, with leap days). */
 export const MAX_SEARCH_RANGE_DAYS = 3653;
-const MS_PER_DAY = 86_400_000;
 
 /** An ISO 8601 date ("2027-05-01") or date-time with zone ("2027-05-01T22:00:00Z"); midnight UTC for a date. */
 export const isoInstantSchema = z.string({ error: 'Give an ISO date such as 2027-05-01' })
