@@ -1,15 +1,16 @@
 /**
- * The search API under load: autocannon on loopback against the real app and a throwaway
- * PostgreSQL, measuring a cached search while long (10-year, uncached) searches run beside it.
- * Bounded in time and count; every request goes to 127.0.0.1.
+ * The search API under load: autocannon on loopback against the real app (its own process, as
+ * `npm run serve` runs it) and a throwaway PostgreSQL, measuring a cached search while long
+ * (10-year, uncached) searches run beside it. Bounded in time and count; every request goes to
+ * 127.0.0.1.
  */
 import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import autocannon from 'autocannon';
-import { loadConfig } from '../../server/config';
+import { spawn } from 'node:child_process';
 import { EmbeddedPostgres, findFreePort } from '../../server/db/embedded-postgres';
-import { startServer } from '../../server/index';
+import { openDatabase } from '../../server/db/database';
 import { seedDemo, DEMO_PASSWORD, demoAccounts } from '../../server/seeders/demo';
 import { AuthService } from '../../server/services/auth-service';
 
@@ -32,10 +33,24 @@ export async function runApiLoadBench(log: (line: string) => void = console.log)
   await pg.start();
   try {
     await pg.ensureDatabase('gnomon_bench');
-    const config = loadConfig({ NODE_ENV: 'production', PORT: '0', BCRYPT_ROUNDS: '4', LOGIN_MAX_FAILURES: '1000' });
-    const running = await startServer({ config, databaseUrl: pg.url('gnomon_bench'), jwtSecret: 'bench-secret-long-enough-for-hs256-signing' });
+    const databaseUrl = pg.url('gnomon_bench');
+    const db = await openDatabase(databaseUrl);
+    await seedDemo(new AuthService(4), db.sequelize);
+    await db.close();
+
+    const port = await findFreePort();
+    const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+      env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: databaseUrl, JWT_SECRET: 'bench-secret-long-enough-for-hs256-signing' },
+      stdio: ['ignore', 'ignore', 'inherit'],
+    });
+    const running = { url: `http://127.0.0.1:${port}` };
     try {
-      await seedDemo(new AuthService(4), running.database.sequelize);
+      for (let i = 0; i < 150; i += 1) {
+        const up = await fetch(`${running.url}/api/health`).then((r) => r.ok, () => false);
+        if (up) break;
+        if (i === 149) throw new Error('The app did not start within 30 s');
+        await new Promise((r) => setTimeout(r, 200));
+      }
       const login = await fetch(`${running.url}/api/auth/login`, {
         method: 'POST', headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ email: demoAccounts[1]!.email, password: DEMO_PASSWORD }),
@@ -90,7 +105,8 @@ export async function runApiLoadBench(log: (line: string) => void = console.log)
       log(`  long searches done  ${figures.longSearchesDone}, median ${figures.longSearchMedianMs.toFixed(0)} ms each`);
       return figures;
     } finally {
-      await running.close();
+      server.kill('SIGTERM');
+      await new Promise((r) => server.once('exit', r));
     }
   } finally {
     await pg.stop();
