@@ -123,9 +123,10 @@ export function useSightlineTable() {
       render: (row) => formatLocalTime(new Date(row.createdAt), row.timezone),
     },
     {
-      title: '', key: 'actions', width: 230,
+      title: '', key: 'actions', width: 320,
       render: (row) => h(NSpace, { size: 6, wrap: false }, () => [
         h(NButton, { size: 'small', type: 'primary', secondary: true, 'data-testid': 'sightline-open', onClick: () => open(row) }, () => 'Open'),
+        h(NButton, { size: 'small', secondary: true, 'data-testid': 'sightline-lineups', onClick: () => { void router.push({ name: 'sightline', params: { id: row.id } }); } }, () => 'Lineups'),
         h(NButton, { size: 'small', 'data-testid': 'sightline-rename', onClick: () => startRename(row) }, () => 'Rename'),
         h(NButton, { size: 'small', type: 'error', secondary: true, 'data-testid': 'sightline-delete', onClick: () => confirmDelete(row) }, () => 'Delete'),
       ]),

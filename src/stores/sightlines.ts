@@ -65,5 +65,10 @@ export const useSightlinesStore = defineStore('sightlines', () => {
     }
   }
 
-  return { sightlines, loading, loaded, nextLineup, refresh, get, create, update, remove, loadNextLineups };
+  /** The next good lineups of one sightline for a target. */
+  function nextLineupsFor(id: string, target: string, count: number) {
+    return sightlinesApi.fetchNextLineups(id, { target, count });
+  }
+
+  return { sightlines, loading, loaded, nextLineup, refresh, get, create, update, remove, loadNextLineups, nextLineupsFor };
 });
