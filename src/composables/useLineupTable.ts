@@ -34,7 +34,7 @@ export function useLineupTable(lineups: Ref<readonly Lineup[]>, timeZone: Ref<st
         title: 'Start – end', key: 'start', minWidth: 150,
         render: (row) => h('span', { class: 'mono' }, `${clockOf(row.start, tz)} – ${clockOf(row.end, tz)} ${zoneOf(row.start, tz)}`),
       },
-      { title: 'Peak', key: 'peak', width: 80, render: (row) => h('span', { class: 'mono' }, clockOf(row.peak, tz)) },
+      { title: 'Peak', key: 'peak', width: 100, render: (row) => h('span', { class: 'mono' }, `${clockOf(row.peak, tz)} ${zoneOf(row.peak, tz)}`) },
       {
         title: 'Duration', key: 'durationMin', width: 110,
         sorter: (a, b) => a.durationMin - b.durationMin,

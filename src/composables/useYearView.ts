@@ -59,11 +59,13 @@ export function useYearView(width: Ref<number>) {
   const wantedKey = computed(() => JSON.stringify(wanted.value));
   const upToDate = computed(() => year.body !== null && JSON.stringify(year.body) === wantedKey.value);
 
+  /** The year view stays mounted once shown: it searches only while its tab is open. */
+  const active = computed(() => page.tab.value === 'year');
   function refresh(): void {
-    if (wanted.value && !upToDate.value) void lineups.runYear(wanted.value);
+    if (active.value && wanted.value && !upToDate.value) void lineups.runYear(wanted.value);
   }
   onMounted(refresh);
-  watch(wantedKey, refresh);
+  watch([wantedKey, active], refresh);
 
   const darkness = computed(() => {
     const site = detail.site;
@@ -116,7 +118,7 @@ export function useYearView(width: Ref<number>) {
       rows = months.value.map((m, col) => ({
         key: m.key,
         label: monthLabel(m, true),
-        sub: col === 0 || m.month === 1 ? String(m.year) : '',
+        sub: col === 0 || m.month === 1 ? `’${String(m.year).slice(2)}` : '',
         x: dayLabelW + col * (cellW + GAP) + cellW / 2,
         y: 11,
         anchor: 'middle',
