@@ -5,7 +5,7 @@
  */
 import { DateTime } from 'luxon';
 import { assertFiniteInRange, assertValidDate } from '../sky/guards';
-import { assertTimeZone, nightSpanUtc } from '../sky/timezone';
+import { assertLocalDate, assertTimeZone, nightSpanUtc } from '../sky/timezone';
 import type { MsInterval } from './intervals';
 import { nightDateOf } from './localTime';
 
@@ -142,9 +142,11 @@ export function nightsWithDarkness(windows: readonly MsInterval[], dates: readon
   const sorted = [...windows].sort((a, b) => a.startMs - b.startMs);
   const out = new Set<string>();
   for (const date of dates) {
-    const span = nightSpanUtc(date, timeZone);
-    const from = span.start.getTime();
-    const to = span.end.getTime();
+    // nightSpanUtc's span (local noon to local noon), without checking the zone again per date.
+    assertLocalDate(date);
+    const noon = DateTime.fromISO(`${date}T12:00:00`, { zone: timeZone });
+    const from = noon.toMillis();
+    const to = noon.plus({ days: 1 }).toMillis();
     // Binary search for the first window ending after the night starts.
     let lo = 0;
     let hi = sorted.length;
@@ -157,6 +159,12 @@ export function nightsWithDarkness(windows: readonly MsInterval[], dates: readon
     if (w && w.startMs < to && w.endMs > from) out.add(date);
   }
   return out;
+}
+
+/** ISO weekday (1 Monday .. 7 Sunday) of a checked calendar date 'YYYY-MM-DD'. */
+function isoWeekday(date: string): number {
+  const day = new Date(Date.UTC(Number(date.slice(0, 4)), Number(date.slice(5, 7)) - 1, Number(date.slice(8, 10)))).getUTCDay();
+  return day === 0 ? 7 : day;
 }
 
 /** What {@link yearHeatmap} is built from. */
@@ -192,7 +200,7 @@ export function yearHeatmap(input: YearHeatmapInput): YearMonth[] {
       return {
         date,
         day: Number(date.slice(8, 10)),
-        weekday: DateTime.fromISO(date, { zone: 'UTC' }).weekday,
+        weekday: isoWeekday(date),
         bestScore: s?.bestScore ?? null,
         lineupCount: s?.count ?? 0,
         hasDarkness: dark ? dark.has(date) : null,
