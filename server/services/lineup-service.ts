@@ -1,6 +1,7 @@
 import { frameFromSightline } from '../../shared/geo';
 import type { Frame, ObserverSite } from '../../shared/schemas/geometry';
 import type { Lineup, LineupSearchRequest, LineupSearchResponse, TargetRef } from '../../shared/schemas/lineup';
+import { checkedRange } from '../../shared/lineup/time';
 import { findTarget } from '../../shared/sky/catalogue';
 import { timeZoneForSite } from '../../shared/sky/timezone';
 import { lineupTideStatusFromAccess, tideAccess, type TideAccess } from '../../shared/tide';
@@ -82,7 +83,13 @@ export class LineupService {
       if (!v) throw new AppError('validation', 'A typed frame needs the vantage position', { vantage: 'Give the vantage position' });
       site = v;
     } else if (geometry) {
-      frame = frameFromSightline(geometry.vantage, geometry.landmark, { bandHeightDeg: geometry.bandHeightDeg });
+      try {
+        frame = frameFromSightline(geometry.vantage, geometry.landmark, { bandHeightDeg: geometry.bandHeightDeg });
+      } catch (error) {
+        // Pins that coincide or lie too far apart give no frame (a saved sightline can hold such pins too).
+        if (error instanceof RangeError) throw new AppError('validation', error.message, { [request.sightline ? 'sightline' : 'sightlineId']: error.message });
+        throw error;
+      }
       site = { lat: geometry.vantage.lat, lon: geometry.vantage.lon, elevationM: geometry.vantage.elevationM + geometry.vantage.cameraHeightM };
     } else {
       throw new AppError('validation', 'Give a frame or a sightline', { frame: 'Give a frame or a sightline' });
@@ -92,6 +99,8 @@ export class LineupService {
     const { conditions } = request;
     let found;
     try {
+      // Before the cache: it keys rows by UTC year, and a year outside the engine span must not reach it.
+      checkedRange(request.from, request.to);
       const sets = await this.darkWindows.setsFor(site, request.from, request.to, conditions);
       const task: EngineTask = { kind: 'search', frame, site, target: { raHours: target.raHours, decDeg: target.decDeg }, from: request.from, to: request.to, conditions, darkWindows: sets };
       const inline = request.to.getTime() - request.from.getTime() <= INLINE_SEARCH_MAX_DAYS * DAY_MS;

@@ -122,6 +122,36 @@ describe('POST /api/lineups/search', () => {
   });
 });
 
+describe('search input the engine refuses', () => {
+  const farAway = { lat: 50.6045, lon: -1.957, heightM: 30, widthM: 12 };
+  it.each([
+    ['the vantage and the landmark coincide', { sightline: { vantage: { lat: -35, lon: 149 }, landmark: { lat: -35, lon: 149, heightM: 30 } } }],
+    ['the landmark is half a world away', { sightline: { vantage: { lat: -35, lon: 149 }, landmark: farAway } }],
+  ])('answers 400 JSON, not 500, when %s', async (_situation, geometry) => {
+    const res = await agent.post('/api/lineups/search').send({ ...geometry, target: { id: 'galactic-centre' }, from: '2027-06-01', to: '2027-07-01' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('validation');
+  });
+
+  it('answers 400 for a saved sightline whose pins give no frame, on search and on next-lineups', async () => {
+    const created = await agent.post('/api/sightlines').send({ name: 'Pins apart', vantage: { lat: -35, lon: 149 }, landmark: farAway });
+    expect(created.status).toBe(201);
+    const id = created.body.sightline.id as string;
+    const res = await agent.post('/api/lineups/search').send({ sightlineId: id, target: { id: 'galactic-centre' }, from: '2027-06-01', to: '2027-07-01' });
+    expect(res.status).toBe(400);
+    expect((await agent.get(`/api/sightlines/${id}/next-lineups`)).status).toBe(400);
+  });
+
+  // Date.UTC reads years 0..99 as 1900..1999, so such a range must be refused before any dark windows are cached.
+  it.each(['0000-06-01', '0050-06-01'])('answers 400 for a range starting in the year of %s, outside the engine span 1900..2200', async (from) => {
+    const res = await agent.post('/api/lineups/search').send({
+      frame: wideFrame, vantage: southSite, target: { id: 'galactic-centre' }, from, to: from.replace(/-06-/, '-07-'),
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/1900/);
+  });
+});
+
 describe('lineups of a saved sightline with a tide rule', () => {
   it('carry the tide status that the tide times give for each lineup', async () => {
     const owner = await createUser();
