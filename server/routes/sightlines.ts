@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { fieldNoteInputSchema, sightlineInputSchema, sightlineUpdateSchema, tideRuleRequestSchema, tideTimesPasteSchema } from '../../shared/schemas/sightline';
 import { isoInstantSchema } from '../../shared/schemas/lineup';
+import { ENGINE_MAX_UNIX_MS, ENGINE_MIN_UNIX_MS } from '../../shared/lineup/time';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { FieldNoteService } from '../services/field-note-service';
@@ -18,7 +19,9 @@ const nextQuery = z.object({
   target: catalogueTargetRefSchema.shape.id.optional(),
   count: z.coerce.number().int().min(1).max(20).optional(),
 });
-const rangeQuery = z.object({ from: isoInstantSchema.optional(), to: isoInstantSchema.optional() });
+// The engine span; also keeps years PostgreSQL cannot store (year 0) out of the query.
+const spanInstant = isoInstantSchema.refine((d) => d.getTime() >= ENGINE_MIN_UNIX_MS && d.getTime() <= ENGINE_MAX_UNIX_MS, { message: 'Give a date between 1900 and 2200' });
+const rangeQuery = z.object({ from: spanInstant.optional(), to: spanInstant.optional() });
 
 export interface SightlineRouterDeps {
   sightlines: SightlineService;

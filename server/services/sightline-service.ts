@@ -35,7 +35,12 @@ export class SightlineService {
 
   /** The sightline if the user may do the action; 404 when they may not even read it, 403 otherwise. */
   async get(user: UserModel, id: string, action: SightlineAction = 'read', transaction?: Transaction): Promise<SightlineModel> {
-    const sightline = await SightlineModel.findByPk(id, { include: ownerInclude, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+    const sightline = await SightlineModel.findByPk(id, {
+      include: ownerInclude,
+      transaction,
+      // Only the sightline row is locked: PostgreSQL refuses FOR UPDATE on the owner's outer-joined side.
+      lock: transaction ? { level: transaction.LOCK.UPDATE, of: SightlineModel } : undefined,
+    });
     if (!sightline || !canOnSightline(user, sightline, 'read')) throw AppError.notFound('No such sightline');
     if (!canOnSightline(user, sightline, action)) throw new AppError('forbidden', 'Only the owner can change this sightline');
     return sightline;

@@ -1,5 +1,6 @@
 import { Op, type Sequelize } from 'sequelize';
 import { isCleanTideParse, parseTideTimes, type TideEvent, type TideRule } from '../../shared/tide';
+import { ENGINE_MAX_UNIX_MS, ENGINE_MIN_UNIX_MS } from '../../shared/lineup/time';
 import { AppError } from '../errors';
 import type { SightlineModel } from '../models/sightline';
 import { TideEventModel } from '../models/tide-event';
@@ -21,6 +22,8 @@ export class TideService {
   ) {}
 
   async setRule(user: UserModel, sightlineId: string, rule: TideRule | null): Promise<SightlineModel> {
+    // PostgreSQL's jsonb cannot hold a NUL character: refuse it here rather than fail on save.
+    if (rule?.note?.includes('\u0000')) throw new AppError('validation', 'Some fields need attention', { 'rule.note': 'The note has a character that cannot be stored' });
     const sightline = await this.sightlines.get(user, sightlineId, 'edit');
     await sightline.update({ tideRule: rule });
     return sightline;
@@ -64,7 +67,14 @@ export class TideService {
     // usual spacing of tides (about 6 h 12 min, common practice) beyond the first and last event.
     const first = new Date(Date.parse(parsed.events[0]!.at) - REPLACE_MARGIN_MS);
     const last = new Date(Date.parse(parsed.events[parsed.events.length - 1]!.at) + REPLACE_MARGIN_MS);
+    const outside = parsed.events.find((e) => Date.parse(e.at) < ENGINE_MIN_UNIX_MS || Date.parse(e.at) > ENGINE_MAX_UNIX_MS);
+    if (outside) {
+      throw new AppError('validation', 'Tide times must lie between 1900 and 2200; nothing was saved', { text: `${outside.at} is outside 1900..2200` });
+    }
     await this.sequelize.transaction(async (transaction) => {
+      // The sightline row is locked so that pastes over the same span run one after the other
+      // (two deletes before two inserts would break the one-event-per-instant constraint).
+      await this.sightlines.get(user, sightlineId, 'edit', transaction);
       await TideEventModel.destroy({ where: { sightlineId, at: { [Op.between]: [first, last] } }, transaction });
       await TideEventModel.bulkCreate(
         parsed.events.map((e) => ({ sightlineId, at: new Date(e.at), kind: e.kind, heightM: e.heightM ?? null })),

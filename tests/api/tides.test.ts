@@ -71,6 +71,36 @@ describe('tide times', () => {
     expect((await agent.get(`/api/sightlines/${id}/tide-times`)).body.events).toEqual([]);
   });
 
+  it('takes concurrent pastes over the same span one after the other, none failing, the events stored once', async () => {
+    const { agent, id } = await owned();
+    const results = await Promise.all([1, 2, 3, 4, 5, 6].map(() => agent.post(`/api/sightlines/${id}/tide-times`).send({ text: PASTE })));
+    expect(results.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 200]);
+    expect((await agent.get(`/api/sightlines/${id}/tide-times`)).body.events).toHaveLength(4);
+  });
+
+  it('refuses tide times outside 1900..2200 with 400, saving nothing', async () => {
+    const { agent, id } = await owned();
+    const res = await agent.post(`/api/sightlines/${id}/tide-times`).send({ text: '0001-01-01 00:00 H 1.0' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('validation');
+    expect((await agent.get(`/api/sightlines/${id}/tide-times`)).body.events).toEqual([]);
+  });
+
+  it.each(['from=0000-01-01', 'to=0000-06-01T00:00:00Z'])('answers 400 for a listing range outside 1900..2200 (%s)', async (query) => {
+    const { agent, id } = await owned();
+    const res = await agent.get(`/api/sightlines/${id}/tide-times?${query}`);
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toEqual([query.split('=')[0]]);
+  });
+
+  it('refuses a tide rule note with a NUL character with 400, keeping the rule as it was', async () => {
+    const { agent, id } = await owned();
+    const res = await agent.put(`/api/sightlines/${id}/tide-rule`).send({ rule: { mode: 'around-low', hoursBefore: 1, hoursAfter: 2, note: 'a\u0000b' } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['rule.note']).toBeTruthy();
+    expect((await agent.get(`/api/sightlines/${id}`)).body.sightline.tideRule).toBeNull();
+  });
+
   it('sets, reads back and removes a tide rule; a bad rule gets field messages', async () => {
     const { agent, id } = await owned();
     const rule = { mode: 'around-low', hoursBefore: 2, hoursAfter: 1.5, note: 'The arch is reached over the sand' };
