@@ -6,12 +6,22 @@ import { equatorialJ2000Schema, frameSchema, landmarkSchema, latitudeSchema, lon
 /** Longest search range, in days (ten years, with leap days). */
 export const MAX_SEARCH_RANGE_DAYS = 3653;
 
+/** True when YYYY-MM-DD names a day that exists (2027-02-30 does not). */
+function isRealCalendarDate(ymd: string): boolean {
+  const [y, m, d] = ymd.split('-').map(Number) as [number, number, number];
+  const date = new Date(Date.UTC(2000, m - 1, d));
+  date.setUTCFullYear(y);
+  return date.getUTCFullYear() === y && date.getUTCMonth() === m - 1 && date.getUTCDate() === d;
+}
+
 /** An ISO 8601 date ("2027-05-01") or date-time with zone ("2027-05-01T22:00:00Z"); midnight UTC for a date. */
 export const isoInstantSchema = z.string({ error: 'Give an ISO date such as 2027-05-01' })
   .trim()
   .refine((s) => /^\d{4}-\d{2}-\d{2}(T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2}))?$/.test(s) && !Number.isNaN(Date.parse(s)), {
     message: 'Give an ISO date such as 2027-05-01 or 2027-05-01T22:00:00Z',
   })
+  .refine((s) => isRealCalendarDate(s.slice(0, 10)), { message: 'That day does not exist' })
+  .refine((s) => { const y = Number(s.slice(0, 4)); return y >= 1900 && y < 2200; }, { message: 'Dates from 1900 to 2199 only' })
   .transform((s) => new Date(/T/.test(s) ? s : `${s}T00:00:00Z`));
 
 export const catalogueTargetRefSchema = z.object({
