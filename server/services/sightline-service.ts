@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize';
 import type { SightlineInput, SightlineUpdate } from '../../shared/schemas/sightline';
 import { timeZoneForSite } from '../../shared/sky/timezone';
+import { distanceM, MAX_SIGHTLINE_DISTANCE_M } from '../../shared/geo';
 import { AppError } from '../errors';
 import { SightlineModel } from '../models/sightline';
 import { UserModel } from '../models/user';
@@ -25,6 +26,20 @@ function columnsFrom(input: Partial<SightlineInput>) {
   };
 }
 
+/** Shortest vantage-to-landmark distance saved, m: closer than this there is no line of sight to plan. */
+const MIN_SAVED_DISTANCE_M = 1;
+
+/** Refuses pins that give no sightline to compute (coinciding, or farther apart than the geometry covers). */
+function checkPinDistance(vantage: { lat: number; lon: number }, landmark: { lat: number; lon: number }): void {
+  const d = distanceM(vantage, landmark);
+  if (d < MIN_SAVED_DISTANCE_M) {
+    throw new AppError('validation', 'The vantage and the landmark are in the same place', { landmark: 'Move the landmark away from the vantage' });
+  }
+  if (d > MAX_SIGHTLINE_DISTANCE_M) {
+    throw new AppError('validation', `The landmark is more than ${MAX_SIGHTLINE_DISTANCE_M / 1000} km from the vantage`, { landmark: 'Put the landmark within sight of the vantage' });
+  }
+}
+
 /** Saved sightlines: the pins, their heights and the site's time zone. */
 export class SightlineService {
   /** The user's own sightlines; an admin may ask for everyone's. */
@@ -47,12 +62,16 @@ export class SightlineService {
   }
 
   async create(user: UserModel, input: SightlineInput): Promise<SightlineModel> {
+    checkPinDistance(input.vantage, input.landmark);
     const created = await SightlineModel.create({ ownerId: user.id, ...columnsFrom(input) } as SightlineModel['_creationAttributes']);
     return this.get(user, created.id);
   }
 
   async update(user: UserModel, id: string, change: SightlineUpdate): Promise<SightlineModel> {
     const sightline = await this.get(user, id, 'edit');
+    if (change.vantage || change.landmark) {
+      checkPinDistance(change.vantage ?? { lat: sightline.vantageLat, lon: sightline.vantageLon }, change.landmark ?? { lat: sightline.landmarkLat, lon: sightline.landmarkLon });
+    }
     await sightline.update(columnsFrom(change));
     return this.get(user, id);
   }

@@ -6,6 +6,7 @@ import { searchLineups } from '../../shared/lineup';
 import { lineupTideStatus, parseTideTimes } from '../../shared/tide';
 import { demoTideLines } from '../../server/seeders/demo-tides';
 import ical from 'node-ical';
+import { SightlineModel } from '../../server/models/sightline';
 import { createTestContext, createUser, signedInAgent, type TestContext } from './helpers';
 
 let ctx: TestContext;
@@ -135,10 +136,14 @@ describe('search input the engine refuses', () => {
     expect(res.body.error.code).toBe('validation');
   });
 
-  it('answers 400 for a saved sightline whose pins give no frame, on search and on next-lineups', async () => {
-    const created = await agent.post('/api/sightlines').send({ name: 'Pins apart', vantage: { lat: -35, lon: 149 }, landmark: farAway });
+  it('refuses to save such pins, and answers 400 for a sightline stored with them earlier, on search and on next-lineups', async () => {
+    const refused = await agent.post('/api/sightlines').send({ name: 'Pins apart', vantage: { lat: -35, lon: 149 }, landmark: farAway });
+    expect(refused.status).toBe(400);
+    const created = await agent.post('/api/sightlines').send({ name: 'Pins apart', vantage: { lat: -35, lon: 149 }, landmark: { lat: -35.001, lon: 149.001 } });
     expect(created.status).toBe(201);
     const id = created.body.sightline.id as string;
+    // A row saved before the distance rule existed.
+    await SightlineModel.update({ landmarkLat: farAway.lat, landmarkLon: farAway.lon }, { where: { id } });
     const res = await agent.post('/api/lineups/search').send({ sightlineId: id, target: { id: 'galactic-centre' }, from: '2027-06-01', to: '2027-07-01' });
     expect(res.status).toBe(400);
     expect((await agent.get(`/api/sightlines/${id}/next-lineups`)).status).toBe(400);

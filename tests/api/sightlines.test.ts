@@ -36,7 +36,7 @@ describe('sightline CRUD', () => {
     const renamed = await agent.patch(`/api/sightlines/${sightline.id}`).send({ name: '  Stack at dusk  ' });
     expect(renamed.status).toBe(200);
     expect(renamed.body.sightline.name).toBe('Stack at dusk');
-    const moved = await agent.patch(`/api/sightlines/${sightline.id}`).send({ vantage: { lat: -33.89, lon: 151.27 } });
+    const moved = await agent.patch(`/api/sightlines/${sightline.id}`).send({ vantage: { lat: -33.89, lon: 151.27 }, landmark: { lat: -33.895, lon: 151.28 } });
     expect(moved.body.sightline.timezone).toBe('Australia/Sydney');
     expect(moved.body.sightline.vantage.cameraHeightM).toBe(1.5);
     expect((await agent.delete(`/api/sightlines/${sightline.id}`)).status).toBe(204);
@@ -55,6 +55,18 @@ describe('sightline CRUD', () => {
     const res = await agent.post('/api/sightlines').send(bad);
     expect(res.status).toBe(400);
     expect(res.body.error.fields[field]).toBeTruthy();
+  });
+
+  it('refuses pins in the same place or farther apart than 1000 km, on create and on change', async () => {
+    const agent = await signedInAgent(ctx.app, await createUser());
+    const same = await agent.post('/api/sightlines').send({ ...body, landmark: { ...body.landmark, lat: body.vantage.lat, lon: body.vantage.lon } });
+    expect(same.status).toBe(400);
+    expect(same.body.error.fields.landmark).toMatch(/away from the vantage/);
+    const { agent: owner, sightline } = await owned();
+    const far = await owner.patch(`/api/sightlines/${sightline.id}`).send({ vantage: { lat: -33.89, lon: 151.27 } });
+    expect(far.status).toBe(400);
+    expect(far.body.error.fields.landmark).toMatch(/within sight/);
+    expect((await owner.get(`/api/sightlines/${sightline.id}`)).body.sightline.vantage.lat).toBe(body.vantage.lat);
   });
 
   it('refuses an empty change and a bad id', async () => {
