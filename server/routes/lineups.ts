@@ -14,7 +14,7 @@ export function lineupsRouter({ lineups }: { lineups: LineupService }): Router {
   router.use(requireAuth);
 
   router.post('/search', validateBody(lineupSearchRequestSchema), async (req, res) => {
-    res.json(await lineups.search(req.user!, req.body));
+    res.type('json').send(await lineups.searchAsJson(req.user!, req.body));
   });
 
   // POST /api/lineups/export?format=ics|csv with the search body: the same lineups as a file.

@@ -16,7 +16,7 @@ import { runEngineTask, type EngineTask } from '../workers/engine-tasks';
 const DAY_MS = 86_400_000;
 /** Searches up to this long run inline (a few ms with cached dark windows); longer ones go to the pool. */
 const INLINE_SEARCH_MAX_DAYS = 400;
-/** Search results kept in memory for repeated identical searches (not for saved sightlines, whose tide data may change). */
+/** Serialized search answers kept in memory for repeated identical searches. */
 const RESULT_CACHE_ENTRIES = 300;
 
 interface ResolvedTarget { id?: string; name: string; raHours: number; decDeg: number }
@@ -39,11 +39,28 @@ export class LineupService {
     private readonly pool: EnginePool,
   ) {}
 
-  private readonly results = new Map<string, LineupSearchResponse>();
+  /** Serialized answers (without computeMs) by request, so a repeated search costs no engine work nor JSON encoding. */
+  private readonly results = new Map<string, string>();
 
-  private remember(key: string, response: LineupSearchResponse): void {
+  private remember(key: string, body: string): void {
     if (this.results.size >= RESULT_CACHE_ENTRIES) this.results.delete(this.results.keys().next().value!);
-    this.results.set(key, response);
+    this.results.set(key, body);
+  }
+
+  /**
+   * The search answer as a JSON string, from the in-memory cache for a repeated identical search
+   * (searches on saved sightlines are not cached: their tide data may change).
+   */
+  async searchAsJson(user: UserModel, request: LineupSearchRequest): Promise<string> {
+    const started = performance.now();
+    const key = request.sightlineId ? undefined : JSON.stringify(request);
+    const hit = key ? this.results.get(key) : undefined;
+    const withComputeMs = (body: string, ms: number) => `${body.slice(0, -1)},"computeMs":${ms}}`;
+    if (hit) return withComputeMs(hit, Math.round((performance.now() - started) * 10) / 10);
+    const { computeMs, ...rest } = await this.search(user, request);
+    const body = JSON.stringify(rest);
+    if (key) this.remember(key, body);
+    return withComputeMs(body, computeMs);
   }
 
   /**
@@ -69,9 +86,6 @@ export class LineupService {
 
   async search(user: UserModel, request: LineupSearchRequest): Promise<LineupSearchResponse> {
     const started = performance.now();
-    const cacheKey = request.sightlineId ? undefined : JSON.stringify(request);
-    const cached = cacheKey ? this.results.get(cacheKey) : undefined;
-    if (cached) return { ...cached, computeMs: Math.round((performance.now() - started) * 10) / 10 };
     const saved = request.sightlineId ? (await this.sightlines.get(user, request.sightlineId, 'read')).toPublic() : undefined;
     const geometry = request.sightline ?? (saved && !request.frame ? { vantage: saved.vantage, landmark: saved.landmark, bandHeightDeg: saved.bandHeightDeg } : undefined);
 
@@ -139,7 +153,6 @@ export class LineupService {
       frame,
       computeMs: Math.round((performance.now() - started) * 10) / 10,
     };
-    if (cacheKey) this.remember(cacheKey, response);
     return response;
   }
 }

@@ -87,6 +87,19 @@ describe('POST /api/lineups/search', () => {
     expect(await count()).toBe(afterFirst);
   });
 
+  it('answers a repeated identical search from its cache with the same lineups, as JSON with its own computeMs', async () => {
+    const body = { frame: wideFrame, vantage: { lat: -34.2, lon: 150.1 }, target: { id: 'm8' }, from: '2027-05-01', to: '2027-06-01' };
+    const first = await agent.post('/api/lineups/search').send(body);
+    const second = await agent.post('/api/lineups/search').send(body);
+    expect(second.status).toBe(200);
+    expect(second.headers['content-type']).toMatch(/application\/json/);
+    const a = lineupSearchResponseSchema.parse(first.body);
+    const b = lineupSearchResponseSchema.parse(second.body);
+    expect(b.lineups).toEqual(a.lineups);
+    expect(b.lineups.length).toBeGreaterThan(0);
+    expect(b.computeMs).toBeGreaterThanOrEqual(0);
+  });
+
   it('runs a multi-year search on the worker pool with the same result as the engine called directly', async () => {
     const body = { frame: wideFrame, vantage: southSite, target: { id: 'galactic-centre' }, from: '2027-01-01', to: '2029-12-31' };
     const res = await agent.post('/api/lineups/search').send(body);
