@@ -20,6 +20,9 @@ import { EnginePool } from './workers/engine-pool';
 import { AuthService } from './services/auth-service';
 import { TokenService } from './services/token-service';
 import { UserService } from './services/user-service';
+import { PhotoService } from './services/photo-service';
+import { LocalPhotoStorage } from './storage/local-storage';
+import { photosRouter, sightlinePhotosRouter } from './routes/photos';
 
 export interface AppOptions {
   config: Config;
@@ -41,6 +44,11 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   const tides = new TideService(sequelize, sightlines);
   const pool = new EnginePool();
   const lineups = new LineupService(new DarkWindowCache(pool), sightlines, tides, pool);
+  // The local folder driver; an S3-compatible driver implements the same PhotoStorage interface.
+  const photos = new PhotoService(sequelize, sightlines, new LocalPhotoStorage(config.photoDir), {
+    maxPixels: config.photoMaxPixels,
+    perSightline: config.photosPerSightline,
+  });
 
   const app = express();
   app.disable('x-powered-by');
@@ -61,6 +69,8 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   api.get('/health', (_req, res) => { res.json({ ok: true }); });
   api.use('/auth', authRouter({ config, auth, tokens }));
   api.use('/users', usersRouter({ users }));
+  api.use('/sightlines/:id/photos', sightlinePhotosRouter({ photos, maxBytes: config.photoMaxBytes }));
+  api.use('/photos', photosRouter({ photos }));
   api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups }));
   api.use('/lineups', lineupsRouter({ lineups }));
   api.use(apiNotFound);

@@ -1,3 +1,4 @@
+import { join } from 'node:path';
 import { z } from 'zod';
 
 const booleanFromEnv = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
@@ -16,6 +17,10 @@ const envSchema = z.object({
   LOGIN_WINDOW_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(15),
   BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).default(11),
   LOG_REQUESTS: booleanFromEnv.default(false),
+  PHOTO_DIR: z.string().min(1).optional(),
+  PHOTO_MAX_BYTES: z.coerce.number().int().min(1024).max(500 * 1024 * 1024).default(30 * 1024 * 1024),
+  PHOTO_MAX_PIXELS: z.coerce.number().int().min(1).max(1_000_000_000).default(100_000_000),
+  PHOTOS_PER_SIGHTLINE: z.coerce.number().int().min(1).max(1000).default(20),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -37,6 +42,14 @@ export interface Config {
   loginWindowMinutes: number;
   bcryptRounds: number;
   logRequests: boolean;
+  /** Folder of the local photo storage driver (default: <dataDir>/photos). */
+  photoDir: string;
+  /** Largest accepted upload, bytes (default 30 MiB). */
+  photoMaxBytes: number;
+  /** Largest accepted image, width x height in pixels (default 100 000 000): refuses decompression bombs. */
+  photoMaxPixels: number;
+  /** Most reference photos one sightline may hold (default 20). */
+  photosPerSightline: number;
 }
 
 export class ConfigError extends Error {
@@ -69,5 +82,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     loginWindowMinutes: e.LOGIN_WINDOW_MINUTES,
     bcryptRounds: e.BCRYPT_ROUNDS,
     logRequests: e.LOG_REQUESTS,
+    photoDir: e.PHOTO_DIR ?? join(e.GNOMON_DATA_DIR, 'photos'),
+    photoMaxBytes: e.PHOTO_MAX_BYTES,
+    photoMaxPixels: e.PHOTO_MAX_PIXELS,
+    photosPerSightline: e.PHOTOS_PER_SIGHTLINE,
   };
 }

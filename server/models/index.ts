@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { initDarkWindowCacheModel } from './dark-window-cache';
 import { initFieldNoteModel } from './field-note';
+import { initPhotoModel } from './photo';
 import { initSightlineModel } from './sightline';
 import { initTideEventModel } from './tide-event';
 import { initUserModel } from './user';
@@ -12,12 +13,15 @@ export function initModels(sequelize: Sequelize) {
   const Sightline = initSightlineModel(sequelize);
   const FieldNote = initFieldNoteModel(sequelize);
   const TideEvent = initTideEventModel(sequelize);
+  const Photo = initPhotoModel(sequelize);
   Sightline.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   FieldNote.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   FieldNote.belongsTo(Sightline, { foreignKey: 'sightlineId' });
   Sightline.hasMany(FieldNote, { foreignKey: 'sightlineId' });
   Sightline.hasMany(TideEvent, { foreignKey: 'sightlineId' });
-  return { User, DarkWindowCache, Sightline, FieldNote, TideEvent };
+  Sightline.hasMany(Photo, { foreignKey: 'sightlineId' });
+  Photo.belongsTo(Sightline, { foreignKey: 'sightlineId' });
+  return { User, DarkWindowCache, Sightline, FieldNote, TideEvent, Photo };
 }
 
 export type Models = ReturnType<typeof initModels>;
@@ -26,3 +30,4 @@ export { DarkWindowCacheModel } from './dark-window-cache';
 export { SightlineModel } from './sightline';
 export { FieldNoteModel } from './field-note';
 export { TideEventModel } from './tide-event';
+export { PhotoModel } from './photo';
