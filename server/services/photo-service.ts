@@ -158,6 +158,18 @@ export class PhotoService {
     await this.deleteFiles([photo.originalKey, photo.displayKey, photo.thumbKey]);
   }
 
+  /**
+   * Deletes every photo of the sightline, rows then files. No access check: for the sightline's own
+   * delete, which has checked already and must call this before the row goes (the cascade would
+   * remove the photo rows but cannot remove files). Returns how many photos went.
+   */
+  async removeAllOfSightline(sightlineId: string): Promise<number> {
+    const all = await PhotoModel.findAll({ where: { sightlineId } });
+    await PhotoModel.destroy({ where: { id: all.map((p) => p.id) } });
+    await this.deleteFiles(all.flatMap((p) => [p.originalKey, p.displayKey, p.thumbKey]));
+    return all.length;
+  }
+
   private async deleteFiles(keys: string[]): Promise<void> {
     const results = await Promise.allSettled(keys.map((key) => this.storage.delete(key)));
     results.forEach((result, i) => {

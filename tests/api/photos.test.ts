@@ -9,7 +9,7 @@ import type { Express } from 'express';
 import { photoListResponseSchema, photoResponseSchema, type Photo } from '../../shared/schemas/photo';
 import { sightlineResponseSchema } from '../../shared/schemas/sightline';
 import { PhotoService } from '../../server/services/photo-service';
-import type { SightlineService } from '../../server/services/sightline-service';
+import { SightlineService } from '../../server/services/sightline-service';
 import { LocalPhotoStorage } from '../../server/storage/local-storage';
 import { UNREADABLE_IMAGE_MESSAGE } from '../../server/services/photo-image';
 import { createTestApp, createTestContext, createUser, signedInAgent, type TestContext } from './helpers';
@@ -316,6 +316,21 @@ describe('photo privacy and permissions', () => {
     expect((rows as Array<{ n: number }>)[0]!.n).toBe(0);
     expect((await agent.get(photo.thumbUrl)).status).toBe(404);
     expect((await agent.get(`/api/sightlines/${sightline.id}/photos`)).body.photos).toEqual([]);
+  });
+
+  it('removeAllOfSightline deletes every photo row and file of that sightline only', async () => {
+    const { photo, sightline, agent } = await withPhoto();
+    const second = await upload(agent, sightline.id, await exifJpeg());
+    expect(second.status).toBe(201);
+    const kept = await withPhoto();
+    const service = new PhotoService(ctx.db.sequelize, new SightlineService(), new LocalPhotoStorage(photoDir), { maxPixels: 1e8, perSightline: 20 });
+    expect(await service.removeAllOfSightline(sightline.id)).toBe(2);
+    const entries = readdirSync(photoDir);
+    expect(entries).not.toContain(photo.id);
+    expect(entries).not.toContain(second.body.photo.id);
+    expect(filesUnder(join(photoDir, kept.photo.id))).toHaveLength(3);
+    expect((await agent.get(`/api/sightlines/${sightline.id}/photos`)).body.photos).toEqual([]);
+    expect((await kept.agent.get(`/api/sightlines/${kept.sightline.id}/photos`)).body.photos).toHaveLength(1);
   });
 
   it('anonymous calls get 401', async () => {
