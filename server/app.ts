@@ -71,7 +71,7 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   api.use('/users', usersRouter({ users }));
   api.use('/sightlines/:id/photos', sightlinePhotosRouter({ photos, maxBytes: config.photoMaxBytes }));
   api.use('/photos', photosRouter({ photos }));
-  api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups }));
+  api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups, photos }));
   api.use('/lineups', lineupsRouter({ lineups }));
   api.use(apiNotFound);
   app.use('/api', api);

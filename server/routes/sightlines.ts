@@ -9,6 +9,7 @@ import type { FieldNoteService } from '../services/field-note-service';
 import type { SightlineService } from '../services/sightline-service';
 import type { TideService } from '../services/tide-service';
 import type { LineupService } from '../services/lineup-service';
+import type { PhotoService } from '../services/photo-service';
 import { catalogueTargetRefSchema } from '../../shared/schemas/lineup';
 
 const uuid = z.uuid({ error: 'Not a valid id' });
@@ -28,10 +29,11 @@ export interface SightlineRouterDeps {
   notes: FieldNoteService;
   tides: TideService;
   lineups: LineupService;
+  photos: PhotoService;
 }
 
 /** Sightlines and their field notes. */
-export function sightlinesRouter({ sightlines, notes, tides, lineups }: SightlineRouterDeps): Router {
+export function sightlinesRouter({ sightlines, notes, tides, lineups, photos }: SightlineRouterDeps): Router {
   const router = Router();
   router.use(requireAuth);
 
@@ -57,6 +59,9 @@ export function sightlinesRouter({ sightlines, notes, tides, lineups }: Sightlin
 
   router.delete('/:id', async (req, res) => {
     const { id } = parseOrThrow(sightlineParams, req.params);
+    // The photo rows would go with the cascade, but their files would stay: remove them first.
+    await sightlines.get(req.user!, id, 'delete');
+    await photos.removeAllOfSightline(id);
     await sightlines.remove(req.user!, id);
     res.status(204).end();
   });

@@ -333,6 +333,15 @@ describe('photo privacy and permissions', () => {
     expect((await kept.agent.get(`/api/sightlines/${kept.sightline.id}/photos`)).body.photos).toHaveLength(1);
   });
 
+  it('deleting the sightline deletes its photos\' rows and files', async () => {
+    const { photo, sightline, agent } = await withPhoto();
+    expect(filesUnder(join(photoDir, photo.id))).toHaveLength(3);
+    expect((await agent.delete(`/api/sightlines/${sightline.id}`)).status).toBe(204);
+    expect(readdirSync(photoDir)).not.toContain(photo.id);
+    const [rows] = await ctx.db.sequelize.query('SELECT count(*)::int AS n FROM photos WHERE id = $1', { bind: [photo.id] });
+    expect((rows as Array<{ n: number }>)[0]!.n).toBe(0);
+  });
+
   it('anonymous calls get 401', async () => {
     const { photo, sightline } = await withPhoto();
     expect((await request(ctx.app).get(photo.thumbUrl)).status).toBe(401);
