@@ -3,7 +3,8 @@ import exifr from 'exifr';
 import { PHOTO_DISPLAY_LONG_SIDE_PX, PHOTO_THUMB_LONG_SIDE_PX, type PhotoExif, type PhotoMimeType } from '../../shared/schemas/photo';
 import { AppError } from '../errors';
 
-export const UNREADABLE_IMAGE_MESSAGE = 'This file is not an image we can read (JPEG, PNG, WebP, HEIC)';
+// HEIC is not named: the sharp build from the registry decodes AVIF but not HEIC.
+export const UNREADABLE_IMAGE_MESSAGE = 'This file is not an image we can read (JPEG, PNG, WebP, AVIF)';
 
 /** A decoded upload: what it is, its renditions, and what its EXIF says. */
 export interface ProcessedPhoto {
