@@ -82,6 +82,9 @@ export function rollFromHorizonDeg(a: PixelPoint, b: PixelPoint): number {
 /**
  * Solves the camera pose so that the landmark top projects to the clicked pixel.
  * @param input - see {@link CalibrationInput} for fields and ranges
+ * When the landmark lies past the zenith in the camera's vertical plane (a steep upward shot
+ * with a very wide lens) a second pose fits the click as well; the solver returns the usual one,
+ * with the landmark on the near side of the zenith.
  * @returns the pose (azimuth in [0, 360), altitude -90..90, the roll used, the FOV and image
  *   size given) and the residual of the clicked point in pixels
  * @throws RangeError on invalid input

@@ -5,3 +5,4 @@
 export * from './camera';
 export * from './calibrate';
 export * from './overlay';
+export * from './track';
