@@ -1,5 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
-import type { Photo, PhotoExif, PhotoMimeType } from '../../shared/schemas/photo';
+import type { Photo, PhotoCalibration, PhotoExif, PhotoMimeType } from '../../shared/schemas/photo';
 
 export class PhotoModel extends Model<InferAttributes<PhotoModel>, InferCreationAttributes<PhotoModel>> {
   declare id: string;
@@ -15,7 +15,7 @@ export class PhotoModel extends Model<InferAttributes<PhotoModel>, InferCreation
   declare thumbKey: string;
   declare exif: PhotoExif;
   declare hideGps: CreationOptional<boolean>;
-  declare calibration: CreationOptional<Record<string, unknown> | null>;
+  declare calibration: CreationOptional<PhotoCalibration | null>;
   declare createdAt: CreationOptional<Date>;
 
   /** The API shape; `showPrivate` (the owner) sees GPS and gets the original's address. */

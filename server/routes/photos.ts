@@ -2,7 +2,7 @@ import { pipeline } from 'node:stream/promises';
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import { photoUpdateSchema, photoVariants } from '../../shared/schemas/photo';
+import { photoCalibrationInputSchema, photoUpdateSchema, photoVariants } from '../../shared/schemas/photo';
 import { AppError } from '../errors';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
@@ -74,7 +74,7 @@ export function sightlinePhotosRouter({ photos, maxBytes }: PhotoRouterDeps): Ro
   return router;
 }
 
-/** Mounted at /api/photos: renditions, GPS privacy, delete. */
+/** Mounted at /api/photos: renditions, GPS privacy, calibration, delete. */
 export function photosRouter({ photos }: Pick<PhotoRouterDeps, 'photos'>): Router {
   const router = Router();
   router.use(requireAuth);
@@ -82,6 +82,18 @@ export function photosRouter({ photos }: Pick<PhotoRouterDeps, 'photos'>): Route
   router.get('/:id', async (req, res) => {
     const { id } = parseOrThrow(photoParams, req.params);
     const photo = await photos.get(req.user!, id);
+    res.json({ photo: photo.toPublic({ showPrivate: photos.isOwner(req.user!, photo) }) });
+  });
+
+  router.put('/:id/calibration', validateBody(photoCalibrationInputSchema), async (req, res) => {
+    const { id } = parseOrThrow(photoParams, req.params);
+    const photo = await photos.calibrate(req.user!, id, req.body);
+    res.json({ photo: photo.toPublic({ showPrivate: photos.isOwner(req.user!, photo) }) });
+  });
+
+  router.delete('/:id/calibration', async (req, res) => {
+    const { id } = parseOrThrow(photoParams, req.params);
+    const photo = await photos.clearCalibration(req.user!, id);
     res.json({ photo: photo.toPublic({ showPrivate: photos.isOwner(req.user!, photo) }) });
   });
 

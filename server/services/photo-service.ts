@@ -1,7 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import type { Sequelize, Transaction } from 'sequelize';
-import type { PhotoUpdate, PhotoVariant } from '../../shared/schemas/photo';
+import type { PhotoCalibrationInput, PhotoUpdate, PhotoVariant } from '../../shared/schemas/photo';
+import { sightlineGeometry } from '../../shared/geo';
+import { CalibrationInputError, solvePhotoCalibration } from '../../shared/projection';
 import { AppError } from '../errors';
 import { PhotoModel } from '../models/photo';
 import type { UserModel } from '../models/user';
@@ -148,6 +150,37 @@ export class PhotoService {
   async update(user: UserModel, photoId: string, change: PhotoUpdate): Promise<PhotoModel> {
     const photo = await this.get(user, photoId, 'edit');
     await photo.update({ hideGps: change.hideGps });
+    return photo;
+  }
+
+  /**
+   * Solves and saves the sky overlay's calibration: the landmark top's direction comes from the
+   * sightline's pins as they are now, the pose from the clicks and the lens. Editors only.
+   */
+  async calibrate(user: UserModel, photoId: string, input: PhotoCalibrationInput): Promise<PhotoModel> {
+    return this.sequelize.transaction(async (transaction) => {
+      const photo = await this.get(user, photoId, 'edit');
+      const sightline = (await this.sightlines.get(user, photo.sightlineId, 'edit', transaction)).toPublic();
+      const geometry = sightlineGeometry(sightline.vantage, sightline.landmark);
+      const landmark = { azimuthDeg: geometry.trueBearingDeg, altitudeDeg: geometry.topElevationDeg };
+      let solved;
+      try {
+        solved = solvePhotoCalibration(input, landmark, { widthPx: photo.width, heightPx: photo.height });
+      } catch (error) {
+        if (error instanceof CalibrationInputError) throw new AppError('validation', error.message, { [error.field]: error.message });
+        throw error;
+      }
+      await photo.update({
+        calibration: { ...input, landmark, pose: solved.pose, residualPx: solved.residualPx, calibratedAt: new Date().toISOString() },
+      }, { transaction });
+      return photo;
+    });
+  }
+
+  /** Removes the calibration (editors only). */
+  async clearCalibration(user: UserModel, photoId: string): Promise<PhotoModel> {
+    const photo = await this.get(user, photoId, 'edit');
+    await photo.update({ calibration: null });
     return photo;
   }
 

@@ -6,3 +6,4 @@ export * from './camera';
 export * from './calibrate';
 export * from './overlay';
 export * from './track';
+export * from './photo-calibration';
