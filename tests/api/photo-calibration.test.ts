@@ -75,7 +75,7 @@ describe('photo calibration', () => {
     expect(calibration.residualPx).toBeLessThan(1e-6);
 
     const listed = await agent.get(`/api/sightlines/${photo.sightlineId}/photos`);
-    expect((listed.body.photos as Photo[])[0].calibration?.pose.azimuthDeg).toBeCloseTo(expected.azimuthDeg, 6);
+    expect((listed.body.photos as Photo[])[0]?.calibration?.pose.azimuthDeg).toBeCloseTo(expected.azimuthDeg, 6);
   });
 
   it('an off-centre click with a tilted horizon: the landmark projects back to the click and the roll follows the horizon', async () => {
