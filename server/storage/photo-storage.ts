@@ -3,8 +3,8 @@ import type { Readable } from 'node:stream';
 /**
  * Where photo files live. Keys are made by the server only (`<photo uuid>/<variant>`), never from
  * anything the user sent; drivers still refuse a key that does not have that shape.
- * Drivers: LocalPhotoStorage (a folder, the default). An S3-compatible driver implements the same
- * three methods (PutObject / GetObject / DeleteObject) and is chosen in config.
+ * Drivers: LocalPhotoStorage (a folder, the default) and S3PhotoStorage (an S3-compatible bucket,
+ * PutObject / GetObject / DeleteObject); createPhotoStorage in ./index builds the configured one.
  */
 export interface PhotoStorage {
   /** Stores the bytes under the key, replacing what was there. */
