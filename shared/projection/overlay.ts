@@ -157,3 +157,33 @@ export function svgPathData(runs: readonly (readonly PixelPoint[])[], decimals =
     .map((run) => run.map((p, i) => `${i === 0 ? 'M' : 'L'}${f(assertFiniteInRange(p.x, 'x'))} ${f(assertFiniteInRange(p.y, 'y'))}`).join(' '))
     .join(' ');
 }
+
+/**
+ * Splits a closed loop of sky points (e.g. the galactic plane) into the open runs that stay at or
+ * above an altitude, so the part under the ground or sea is not drawn.
+ * @param loop - sky directions in loop order (the last joins the first)
+ * @param minAltitudeDeg - lowest altitude kept, degrees -90..90
+ * @returns the runs in loop order (runs of one point dropped); `closed` is true only when no point
+ *   was below, and then the single run is the whole loop, to be drawn closed
+ * @throws RangeError on invalid input
+ */
+export function runsAboveAltitude<T extends SkyDirection>(loop: readonly T[], minAltitudeDeg: number): { runs: T[][]; closed: boolean } {
+  if (!Array.isArray(loop)) throw new RangeError('loop must be an array');
+  assertFiniteInRange(minAltitudeDeg, 'minAltitudeDeg', -90, 90);
+  loop.forEach((p, i) => assertSkyDirection(p, `loop[${i}]`));
+  const firstBelow = loop.findIndex((p) => p.altitudeDeg < minAltitudeDeg);
+  if (firstBelow < 0) return { runs: loop.length > 1 ? [loop.slice()] : [], closed: true };
+  // Start at a point below, so a run that wraps past the loop's end stays in one piece.
+  const rotated = [...loop.slice(firstBelow), ...loop.slice(0, firstBelow)];
+  const runs: T[][] = [];
+  let current: T[] = [];
+  for (const p of rotated) {
+    if (p.altitudeDeg >= minAltitudeDeg) current.push(p);
+    else if (current.length) {
+      runs.push(current);
+      current = [];
+    }
+  }
+  if (current.length) runs.push(current);
+  return { runs: runs.filter((r) => r.length > 1), closed: false };
+}

@@ -4,7 +4,8 @@ import { frameFromSightline, sightlineGeometry, type SightlineGeometry } from '.
 import type { Frame, ObserverSite } from '../../shared/schemas/geometry';
 import type { Sightline } from '../../shared/schemas/sightline';
 import type { TideEvent, TideRule } from '../../shared/tide';
-import { getSightline } from '@/api/sightlines';
+import { getSightline, updateSightline } from '@/api/sightlines';
+import { useSessionStore } from './session';
 import * as tidesApi from '@/api/tides';
 
 /** Warnings the server kept about a saved paste (they did not stop it). */
@@ -23,7 +24,10 @@ export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
   const tideRevision = ref(0);
   let loadToken = 0;
 
+  const session = useSessionStore();
   const id = computed(() => sightline.value?.id ?? null);
+  /** True when the signed-in person may change the plan (the owner). */
+  const canEdit = computed(() => sightline.value !== null && session.user?.id === sightline.value.ownerId);
   const timeZone = computed(() => sightline.value?.timezone ?? 'UTC');
 
   /** The camera for sky positions: ground elevation plus camera height, m. */
@@ -80,6 +84,13 @@ export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
     return id.value;
   }
 
+  /** Moves the vantage to a new position, keeping its elevation and camera height. */
+  async function moveVantage(lat: number, lon: number): Promise<void> {
+    const current = sightline.value;
+    if (!current) throw new Error('No sightline is open');
+    sightline.value = await updateSightline(current.id, { vantage: { ...current.vantage, lat, lon } });
+  }
+
   async function saveTideRule(rule: TideRule | null): Promise<void> {
     sightline.value = await tidesApi.putTideRule(requireId(), rule);
     tideRevision.value += 1;
@@ -99,5 +110,5 @@ export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
     tideRevision.value += 1;
   }
 
-  return { sightline, loading, loadError, tideEvents, tideRevision, id, timeZone, site, frame, geometry, open, saveTideRule, pasteTideTimes, clearTideTimes };
+  return { sightline, loading, loadError, tideEvents, tideRevision, id, canEdit, timeZone, site, frame, geometry, open, moveVantage, saveTideRule, pasteTideTimes, clearTideTimes };
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { type CameraPose, type PixelPoint, skyToPixel } from '../../../shared/projection/camera';
-import { frameOutline, galacticPlaneHorizontal, projectPolyline, svgPathData } from '../../../shared/projection/overlay';
+import { frameOutline, galacticPlaneHorizontal, projectPolyline, runsAboveAltitude, svgPathData } from '../../../shared/projection/overlay';
 import { galacticToEquatorialJ2000, targetHorizontal } from '../../../shared/sky';
 import { angularSeparationDeg } from '../../../shared/projection/camera';
 
@@ -149,5 +149,28 @@ describe('svgPathData', () => {
 
   it('refuses a NaN coordinate', () => {
     expect(() => svgPathData([[{ x: 0, y: 0 }, { x: Number.NaN, y: 0 }]])).toThrow(RangeError);
+  });
+});
+
+describe('runsAboveAltitude', () => {
+  const at = (altitudes: number[]) => altitudes.map((altitudeDeg, i) => ({ azimuthDeg: i * 10, altitudeDeg }));
+
+  it('keeps the whole loop, closed, when nothing is below the limit', () => {
+    const loop = at([5, 10, 20, 10]);
+    expect(runsAboveAltitude(loop, 0)).toEqual({ runs: [loop], closed: true });
+  });
+
+  it('joins the run that wraps past the end of the loop and drops single points', () => {
+    // Altitudes: above at indices 0-1 and 5-6 (wrapping into 0-1), a lone point at 3.
+    const loop = at([4, 3, -2, 1, -5, 2, 6]);
+    const { runs, closed } = runsAboveAltitude(loop, 0);
+    expect(closed).toBe(false);
+    expect(runs.map((r) => r.map((p) => p.altitudeDeg))).toEqual([[2, 6, 4, 3]]);
+  });
+
+  it('returns no runs when the whole loop is below, and refuses a bad limit', () => {
+    expect(runsAboveAltitude(at([-1, -2, -3]), 0)).toEqual({ runs: [], closed: false });
+    expect(() => runsAboveAltitude(at([1, 2]), Number.NaN)).toThrow(RangeError);
+    expect(() => runsAboveAltitude(at([1, 2]), 91)).toThrow(RangeError);
   });
 });
