@@ -20,6 +20,7 @@ export {
   type HourDewRisk,
 } from './dew';
 export {
+  assertTimeWindows,
   CLEAR_MAX_HOUR_CLOUD_PCT,
   CLEAR_MAX_MEAN_CLOUD_PCT,
   CLOUDY_MIN_MEAN_CLOUD_PCT,

@@ -91,10 +91,19 @@ function maxOf(values: (number | null)[]): number | null {
   return best;
 }
 
-function checkWindow(window: TimeWindow, index: number): void {
-  assertValidDate(window?.start, `windows[${index}].start`);
-  assertValidDate(window?.end, `windows[${index}].end`);
-  if (window.end.getTime() <= window.start.getTime()) throw new RangeError(`windows[${index}].end must be after its start`);
+/**
+ * Checks a list of lineup windows: each a pair of valid Dates with the end after the start.
+ *
+ * @param windows - the windows to check
+ * @throws RangeError naming the first bad window
+ */
+export function assertTimeWindows(windows: readonly TimeWindow[]): void {
+  if (!Array.isArray(windows)) throw new RangeError('windows must be a list');
+  windows.forEach((window, index) => {
+    assertValidDate(window?.start, `windows[${index}].start`);
+    assertValidDate(window?.end, `windows[${index}].end`);
+    if (window.end.getTime() <= window.start.getTime()) throw new RangeError(`windows[${index}].end must be after its start`);
+  });
 }
 
 function summarizeWindow(forecast: HourlyForecast, byTime: Map<number, ForecastHour>, window: TimeWindow): SkyOutlook {
@@ -176,8 +185,7 @@ export function summarizeOutlooks(forecast: HourlyForecast, windows: readonly Ti
     previous = t;
     byTime.set(t, hour);
   });
-  if (!Array.isArray(windows)) throw new RangeError('windows must be a list');
-  windows.forEach(checkWindow);
+  assertTimeWindows(windows);
   return windows.map((w) => summarizeWindow(checked, byTime, w));
 }
 
@@ -202,7 +210,6 @@ export function summarizeOutlook(forecast: HourlyForecast, window: TimeWindow): 
  * @throws RangeError when a window is invalid
  */
 export function unavailableOutlooks(windows: readonly TimeWindow[], message: string): SkyOutlook[] {
-  if (!Array.isArray(windows)) throw new RangeError('windows must be a list');
-  windows.forEach(checkWindow);
+  assertTimeWindows(windows);
   return windows.map((w) => ({ status: 'unavailable', start: w.start.toISOString(), end: w.end.toISOString(), message }));
 }

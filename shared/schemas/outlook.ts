@@ -103,7 +103,8 @@ export type ForecastOutlook = z.infer<typeof forecastOutlookSchema>;
 export const noForecastYetOutlookSchema = z.object({
   status: z.literal('no-forecast-yet'),
   ...windowFields,
-  issuedAt: z.iso.datetime({ offset: false }),
+  /** When the forecast was made; null when none was fetched (the window is beyond any forecast's reach). */
+  issuedAt: z.iso.datetime({ offset: false }).nullable(),
   /** The last forecast hour (null when the forecast held no hours). */
   horizonEnd: z.iso.datetime({ offset: false }).nullable(),
 });
