@@ -85,16 +85,16 @@ const round1 = (v: number) => Math.round(v * 10) / 10;
 function inventHour(lat: number, lon: number, hourIndex: number): Record<ForecastHourlyVariable, number> {
   const seed = `${lat.toFixed(2)},${lon.toFixed(2)}`;
   // Cloud layers come and go over 5 to 11 hours; some hours clear, some overcast.
-  const low = clamp(smoothNoise(`${seed}|low`, hourIndex, 5) * 1.6 - 0.6, 0, 1);
-  const mid = clamp(smoothNoise(`${seed}|mid`, hourIndex, 11) * 1.5 - 0.6, 0, 1);
-  const high = clamp(smoothNoise(`${seed}|high`, hourIndex, 7) * 1.4 - 0.4, 0, 1);
+  const low = clamp(smoothNoise(`${seed}|low`, hourIndex, 5) * 1.8 - 1.0, 0, 1);
+  const mid = clamp(smoothNoise(`${seed}|mid`, hourIndex, 11) * 1.7 - 0.9, 0, 1);
+  const high = clamp(smoothNoise(`${seed}|high`, hourIndex, 7) * 1.5 - 0.7, 0, 1);
   // Layers overlap at random: the total is the sky not left clear by any of them.
   const total = 1 - (1 - low) * (1 - mid) * (1 - high);
   // A daily temperature cycle by local solar time, coolest before dawn, cooler towards the poles.
   const solarHour = (((hourIndex % 24) + lon / 15) % 24 + 24) % 24;
   const daily = Math.cos(((solarHour - 15) / 24) * 2 * Math.PI);
   const temperature = 24 - 0.45 * Math.abs(lat) + 5 * daily + 6 * (smoothNoise(`${seed}|temp`, hourIndex, 24) - 0.5);
-  const humidity = clamp(72 - 18 * daily + 30 * (smoothNoise(`${seed}|rh`, hourIndex, 9) - 0.5) + 10 * low, 15, 100);
+  const humidity = clamp(64 - 16 * daily + 30 * (smoothNoise(`${seed}|rh`, hourIndex, 9) - 0.5) + 10 * low, 15, 100);
   const t = clamp(round1(temperature), -60, 50);
   const rh = Math.round(humidity);
   const wind = 0.5 + 9 * smoothNoise(`${seed}|wind`, hourIndex, 8) ** 2;
