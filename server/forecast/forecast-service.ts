@@ -2,6 +2,9 @@
  * The sky outlook of lineup windows at a position: the cell's forecast from PostgreSQL while it is
  * fresh, else one fetch from the forecast service shared by every request for that cell.
  *
+ * The newest forecast of a cell is also kept in memory (up to 500 cells), so a page view within the
+ * hour reads neither the service nor the database.
+ *
  * Intervals:
  * - A stored forecast is reused for {@link FORECAST_REFRESH_INTERVAL_MS} (1 h) after it was
  *   fetched. The service blends national models whose runs arrive every 1 to 6 hours (its
@@ -36,6 +39,8 @@ export const FORECAST_MAX_STALE_MS = 12 * MS_PER_HOUR;
 export const FORECAST_KEEP_HISTORY_MS = MS_PER_DAY;
 
 const HALF_HOUR_MS = 30 * MS_PER_MINUTE;
+/** Cells whose newest forecast is also kept in memory, on top of PostgreSQL. */
+const MEMORY_CELLS = 500;
 
 export interface ForecastServiceOptions {
   /** The forecast service client; null when none is configured (every outlook is 'unavailable'). */
@@ -66,6 +71,8 @@ export class ForecastService {
   private readonly store = new ForecastStore();
   private readonly inFlight = new Map<string, Promise<ForecastLookup>>();
   private readonly failures = new Map<string, Failure>();
+  /** The newest forecast per cell this process has seen, so fresh page views skip the database. */
+  private readonly memory = new Map<string, StoredForecast>();
   private readonly source: ForecastSource | null;
   private readonly sightlines?: SightlineService;
   private readonly now: () => Date;
@@ -152,8 +159,17 @@ export class ForecastService {
     return this.store.pruneFetchedBefore(new Date(this.now().getTime() - ageMs));
   }
 
+  private remember(cell: ForecastCell, stored: StoredForecast): void {
+    this.memory.delete(cell.key);
+    if (this.memory.size >= MEMORY_CELLS) this.memory.delete(this.memory.keys().next().value!);
+    this.memory.set(cell.key, stored);
+  }
+
   private async lookup(cell: ForecastCell): Promise<ForecastLookup> {
+    const remembered = this.memory.get(cell.key);
+    if (remembered && this.now().getTime() - remembered.fetchedAt.getTime() < this.refreshIntervalMs) return { ...remembered, stale: false };
     const stored = await this.store.latest(cell);
+    if (stored) this.remember(cell, stored);
     const nowMs = this.now().getTime();
     const ageMs = stored ? nowMs - stored.fetchedAt.getTime() : Infinity;
     if (stored && ageMs < this.refreshIntervalMs) return { ...stored, stale: false };
@@ -182,12 +198,14 @@ export class ForecastService {
       throw unavailable;
     }
     this.failures.delete(cell.key);
+    const fetched = { forecast, fetchedAt: new Date(forecast.fetchedAt) };
+    this.remember(cell, fetched);
     try {
       await this.store.save(cell, forecast, FORECAST_KEEP_HISTORY_MS);
     } catch (error) {
       // The forecast is good even if it could not be kept; the next lookup fetches again.
       this.log(`Storing the forecast for cell ${cell.key} failed: ${error instanceof Error ? error.message : String(error)}`);
     }
-    return { forecast, fetchedAt: new Date(forecast.fetchedAt), stale: false };
+    return { ...fetched, stale: false };
   }
 }
