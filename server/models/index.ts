@@ -5,6 +5,10 @@ import { initPhotoModel } from './photo';
 import { initSightlineModel } from './sightline';
 import { initTideEventModel } from './tide-event';
 import { initUserModel } from './user';
+import { initWatchModel } from './watch';
+import { initWatchDeliveryModel } from './watch-delivery';
+import { initOutboxMessageModel } from './outbox-message';
+import { initCalendarFeedModel } from './calendar-feed';
 
 /** Registers every model and association on the instance; call once per Sequelize instance. */
 export function initModels(sequelize: Sequelize) {
@@ -21,7 +25,16 @@ export function initModels(sequelize: Sequelize) {
   Sightline.hasMany(TideEvent, { foreignKey: 'sightlineId' });
   Sightline.hasMany(Photo, { foreignKey: 'sightlineId' });
   Photo.belongsTo(Sightline, { foreignKey: 'sightlineId' });
-  return { User, DarkWindowCache, Sightline, FieldNote, TideEvent, Photo };
+  const Watch = initWatchModel(sequelize);
+  const WatchDelivery = initWatchDeliveryModel(sequelize);
+  const OutboxMessage = initOutboxMessageModel(sequelize);
+  const CalendarFeed = initCalendarFeedModel(sequelize);
+  Watch.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
+  Watch.belongsTo(Sightline, { as: 'sightline', foreignKey: 'sightlineId' });
+  Watch.hasMany(WatchDelivery, { as: 'deliveries', foreignKey: 'watchId' });
+  WatchDelivery.belongsTo(Watch, { as: 'watch', foreignKey: 'watchId' });
+  CalendarFeed.belongsTo(User, { foreignKey: 'userId' });
+  return { User, DarkWindowCache, Sightline, FieldNote, TideEvent, Photo, Watch, WatchDelivery, OutboxMessage, CalendarFeed };
 }
 
 export type Models = ReturnType<typeof initModels>;
@@ -31,3 +44,7 @@ export { SightlineModel } from './sightline';
 export { FieldNoteModel } from './field-note';
 export { TideEventModel } from './tide-event';
 export { PhotoModel } from './photo';
+export { WatchModel } from './watch';
+export { WatchDeliveryModel } from './watch-delivery';
+export { OutboxMessageModel } from './outbox-message';
+export { CalendarFeedModel } from './calendar-feed';
