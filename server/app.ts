@@ -23,6 +23,18 @@ import { UserService } from './services/user-service';
 import { PhotoService } from './services/photo-service';
 import { LocalPhotoStorage } from './storage/local-storage';
 import { photosRouter, sightlinePhotosRouter } from './routes/photos';
+import { createSmtpMailer, createUnconfiguredMailer } from './mail/mailer';
+import { defaultSchedulerOptions, systemClock, WatchScheduler, type Clock, type WatchSchedulerOptions } from './jobs/watch-scheduler';
+import { WatchService } from './services/watch-service';
+import { WatchLineups } from './services/watch-lineups';
+import { WatchDeliveryService } from './services/watch-delivery-service';
+import { UnsubscribeTokens } from './services/unsubscribe-tokens';
+import { UnsubscribeService } from './services/unsubscribe-service';
+import { CalendarFeedService } from './services/calendar-feed-service';
+import { OutboxService } from './services/outbox-service';
+import { unsubscribeRouter, watchesRouter } from './routes/watches';
+import { outboxRouter } from './routes/outbox';
+import { calendarRouter } from './routes/calendar';
 
 export interface AppOptions {
   config: Config;
@@ -32,10 +44,22 @@ export interface AppOptions {
   jwtSecret: string;
   /** Folder of the built client to serve; omitted in API tests. */
   clientDir?: string;
+  /** The clock of watches and the calendar feed (tests pass a fake one). */
+  clock?: Clock;
+  /** Watch scheduler settings beyond the config (tests shorten the retry delays). */
+  watchScheduler?: Partial<Omit<WatchSchedulerOptions, 'clock'>>;
+}
+
+/** A claim on a delivery older than this is taken as abandoned by a sender that died. */
+const DELIVERY_CLAIM_LEASE_MS = 10 * 60_000;
+
+/** The app's watch scheduler (built by createApp, started by startServer when watches are on). */
+export function watchSchedulerOf(app: Express): WatchScheduler {
+  return app.locals.watchScheduler as WatchScheduler;
 }
 
 /** Builds the Express app (no listen): API under /api, the built client for everything else. */
-export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOptions): Express {
+export function createApp({ config, sequelize, jwtSecret, clientDir, clock = systemClock, watchScheduler }: AppOptions): Express {
   const tokens = new TokenService(jwtSecret, config.jwtTtlHours);
   const auth = new AuthService(config.bcryptRounds);
   const users = new UserService();
@@ -49,6 +73,25 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
     maxPixels: config.photoMaxPixels,
     perSightline: config.photosPerSightline,
   });
+
+  // Watches: e-mails through SMTP_URL (the local fake under `npm start`), a pg-boss scheduler.
+  const mailer = config.smtpUrl ? createSmtpMailer(config.smtpUrl) : createUnconfiguredMailer();
+  const watches = new WatchService(sightlines);
+  const watchLineups = new WatchLineups(lineups);
+  const unsubscribeTokens = new UnsubscribeTokens(jwtSecret);
+  const schedulerOptions = { ...defaultSchedulerOptions, scanIntervalSeconds: config.watchScanIntervalSeconds, ...watchScheduler, clock };
+  const deliveries = new WatchDeliveryService(sequelize, watchLineups, mailer, unsubscribeTokens, {
+    mailFrom: config.mailFrom,
+    appUrl: config.appUrl,
+    maxAttempts: schedulerOptions.retryLimit + 1,
+    claimLeaseMs: DELIVERY_CLAIM_LEASE_MS,
+    // Longer than the longest back-off wait, so a row waiting for its retry is not taken as lost.
+    orphanAfterMs: Math.max(30 * 60_000, 2 * schedulerOptions.retryDelaySeconds * 2 ** schedulerOptions.retryLimit * 1000),
+  });
+  const scheduler = new WatchScheduler(sequelize, deliveries, schedulerOptions);
+  const unsubscribe = new UnsubscribeService(sequelize, unsubscribeTokens);
+  const feeds = new CalendarFeedService(sequelize, watchLineups, config.appUrl, clock);
+  const outbox = new OutboxService();
 
   const app = express();
   app.disable('x-powered-by');
@@ -73,6 +116,11 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   api.use('/photos', photosRouter({ photos }));
   api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups, photos }));
   api.use('/lineups', lineupsRouter({ lineups }));
+  // The pause link works without signing in: mounted before the signed-in watch routes.
+  api.use('/watches/unsubscribe', unsubscribeRouter({ unsubscribe }));
+  api.use('/watches', watchesRouter({ watches }));
+  api.use('/calendar', calendarRouter({ feeds }));
+  api.use('/outbox', outboxRouter({ outbox }));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -84,6 +132,11 @@ export function createApp({ config, sequelize, jwtSecret, clientDir }: AppOption
   }
 
   app.use(errorHandler);
-  app.locals.shutdown = () => pool.close();
+  app.locals.watchScheduler = scheduler;
+  app.locals.shutdown = async () => {
+    await scheduler.stop();
+    mailer.close();
+    await pool.close();
+  };
   return app;
 }

@@ -1,6 +1,7 @@
 /**
  * The local runtime behind `npm start` and `npm run dev`: PostgreSQL from Debian's packages on
- * loopback (unless DATABASE_URL is set), migrations, demo data, and the app server.
+ * loopback (unless DATABASE_URL is set), migrations, demo data, the app server, and (unless
+ * SMTP_URL is set) the local SMTP fake that keeps every watch e-mail in the outbox.
  */
 import { join, resolve } from 'node:path';
 import type { Config } from './config';
@@ -48,7 +49,13 @@ export async function startLocal(config: Config, options: { serveClient: boolean
   };
   installProcessHandlers(shutdown);
   try {
-    running = await startServer({ config, databaseUrl, jwtSecret, clientDir });
+    // Without SMTP_URL the watch e-mails go to the local SMTP fake and are read in the Outbox.
+    running = await startServer({ config, databaseUrl, jwtSecret, clientDir, smtpFake: true });
+    if (running.smtpFake) {
+      console.log(`Mail: local SMTP fake on 127.0.0.1:${running.smtpFake.port}; watch e-mails are stored in the Outbox (admins), never delivered`);
+    } else if (running.config.smtpUrl) {
+      console.log(`Mail: watch e-mails go to the SMTP server ${new URL(running.config.smtpUrl).host}`);
+    }
     const created = await seedDemo(new AuthService(config.bcryptRounds), running.database.sequelize);
     if (created) console.log(`Demo data: ${created} account(s) and sightline(s) created`);
   } catch (error) {
