@@ -10,6 +10,8 @@ import type { SightlineInput, FieldNoteInput } from '../../shared/schemas/sightl
 import type { TideRule } from '../../shared/tide';
 import { SightlineModel } from '../models/sightline';
 import { UserModel } from '../models/user';
+import { watchInputSchema, type WatchInputBody } from '../../shared/schemas/watch';
+import { WatchService } from '../services/watch-service';
 import type { AuthService } from '../services/auth-service';
 import { FieldNoteService } from '../services/field-note-service';
 import { SightlineService } from '../services/sightline-service';
@@ -30,6 +32,11 @@ interface DemoSightline {
   tideRule?: TideRule;
   tides?: { firstLowMinutes: number; meanRangeM: number };
   notes: FieldNoteInput[];
+  /**
+   * A watch the owner keeps on it. Demo watches start paused: mail from the demo goes only to the
+   * local SMTP fake anyway, and the demo addresses are under the reserved .test domain.
+   */
+  watch?: Omit<WatchInputBody, 'sightlineId'>;
 }
 
 const INVENTED_TIDES_NOTE: FieldNoteInput = {
@@ -49,6 +56,7 @@ export const demoSightlines: readonly DemoSightline[] = [
     },
     tideRule: { mode: 'around-low', hoursBefore: 2.5, hoursAfter: 2, note: 'The cove is sand only around low water.' },
     tides: { firstLowMinutes: 4 * 60 + 10, meanRangeM: 5.2 },
+    watch: { minScore: 0.4, minDurationMin: 15, reachableOnly: true, weekdays: [5, 6], leadDays: [3, 0], paused: true },
     notes: [
       { kind: 'access', body: 'Steps down from the coast path, 15 minutes from the lay-by. Slippery when wet.' },
       { kind: 'hazard', body: 'The incoming tide fills the cove from the north side first: leave by the steps, not along the rocks.' },
@@ -121,6 +129,7 @@ export async function seedDemo(auth: AuthService, sequelize: Sequelize): Promise
   const sightlines = new SightlineService();
   const notes = new FieldNoteService(sightlines);
   const tides = new TideService(sequelize, sightlines);
+  const watches = new WatchService(sightlines);
   for (const demo of demoSightlines) {
     const owner = users.get(demo.ownerEmail)!;
     if (await SightlineModel.findOne({ where: { ownerId: owner.id, name: demo.input.name } })) continue;
@@ -132,6 +141,9 @@ export async function seedDemo(auth: AuthService, sequelize: Sequelize): Promise
       await tides.paste(owner, sightline.id, lines.join('\n'));
     }
     for (const note of demo.notes) await notes.create(owner, sightline.id, note);
+    // Made with its sightline only, so a watch the person deleted is not brought back. Not counted:
+    // the count is of accounts and sightlines.
+    if (demo.watch) await watches.create(owner, watchInputSchema.parse({ ...demo.watch, sightlineId: sightline.id }));
     created += 1;
   }
   return created;
