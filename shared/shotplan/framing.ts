@@ -29,8 +29,8 @@ import {
 import { MAX_FOCAL_LENGTH_MM, MAX_SENSOR_SIDE_MM, MIN_FOCAL_LENGTH_MM } from '../schemas/gear';
 import { DEG_PER_RAD, normalizeDegrees360, RAD_PER_DEG } from '../units';
 
-/** Most sky directions accepted by the framing functions. */
-export const MAX_FRAMING_POINTS = 10_000;
+/** Most sky directions accepted by the framing functions (the search costs about 0.5 s per thousand points). */
+export const MAX_FRAMING_POINTS = 2000;
 
 /** How a frame is held: landscape (sensor width horizontal) or portrait (turned 90 deg). */
 export type Orientation = 'landscape' | 'portrait';
@@ -383,7 +383,7 @@ function orientationFit(points: readonly SkyDirection[], sensor: SensorSize, ori
  * the points need at that pointing are returned. Give the landmark's top and base (and its sides
  * if wide) and the target's path as samples close enough that the path between them stays inside
  * too (a few degrees apart): only the given directions are checked.
- * @param points - 1..10 000 sky directions (true azimuth 0..360 deg, apparent altitude -90..90 deg)
+ * @param points - 1..2000 sky directions (true azimuth 0..360 deg, apparent altitude -90..90 deg)
  * @param sensor - sensor width and height, mm, each above 0 and at most 100
  * @param focalLengthMm - the focal length to check, mm 1..5000
  * @returns the lens's field of view, each orientation's best pointing and fit, and the orientations that fit
@@ -424,7 +424,7 @@ export interface LensFit {
  * fit in one frame. Every shorter focal length fits too (its field is wider), so this is the
  * tightest framing that holds everything: what the lineup's "widest focal length that fits" asks
  * for, read as the limit the focal length must not exceed.
- * @param points - 1..10 000 sky directions (see {@link fitInFrame})
+ * @param points - 1..2000 sky directions (see {@link fitInFrame})
  * @param sensor - sensor width and height, mm, each above 0 and at most 100
  * @param lens - focal range, mm 1..5000, `minMm <= maxMm` (equal for a prime; see lensFocalRange)
  * @returns the focal length and orientation, or nulls when even the shortest focal length is too long

@@ -215,3 +215,10 @@ describe('longestFittingFocalLength (the tightest framing that still holds every
     expect(() => longestFittingFocalLength(acrossNorth, FULL_FRAME, { minMm: 24, maxMm: 14 })).toThrow(RangeError);
   });
 });
+
+describe('fitInFrame input limits', () => {
+  it('refuses more than 2000 points', () => {
+    const many = Array.from({ length: 2001 }, (_, i) => ({ azimuthDeg: (i * 0.01) % 360, altitudeDeg: 10 }));
+    expect(() => fitInFrame(many, FULL_FRAME, 24)).toThrow(/at most 2000/);
+  });
+});
