@@ -20,9 +20,15 @@ const routes: RouteRecordRaw[] = [
   { path: '/sightlines', name: 'sightlines', component: () => import('@/views/SightlinesView.vue'), meta: { requiresAuth: true, title: 'Sightlines' } },
   // One sightline: lineup search and results, night chart, year view, field notes and tides.
   { path: '/sightlines/:id', name: 'sightline', component: () => import('@/views/SightlineView.vue'), meta: { requiresAuth: true, title: 'Sightline' } },
+  // Watches: e-mails before coming lineups, and the secret calendar feed.
+  { path: '/watches', name: 'watches', component: () => import('@/views/WatchesView.vue'), meta: { requiresAuth: true, title: 'Watches' } },
+  // The pause link of a watch's e-mail: works signed in or out (neither requiresAuth nor guestOnly).
+  { path: '/watches/unsubscribe', name: 'watch-unsubscribe', component: () => import('@/views/WatchUnsubscribeView.vue'), meta: { title: 'Pause a watch' } },
   { path: '/signin', name: 'signin', component: () => import('@/views/SignInView.vue'), meta: { guestOnly: true, title: 'Sign in' } },
   { path: '/register', name: 'register', component: () => import('@/views/RegisterView.vue'), meta: { guestOnly: true, title: 'Create account' } },
   { path: '/admin', name: 'admin', component: () => import('@/views/AdminView.vue'), meta: { requiresAuth: true, role: 'admin', title: 'Accounts' } },
+  // What the local mail catcher received (the embedded start sends no mail anywhere else).
+  { path: '/admin/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { requiresAuth: true, role: 'admin', title: 'Outbox' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Not found' } },
 ];
 
