@@ -118,7 +118,7 @@ export function nightEventsFromReport(
     lineupPeak: lineup ? assertValidDate(lineup.peak, 'lineup.peak') : null,
     lineupEnd: lineup ? assertValidDate(lineup.end, 'lineup.end') : null,
     moonrise,
-    tideCutOff: tideCutOffAt ?? null,
+    tideCutOff: tideCutOffAt === undefined || tideCutOffAt === null ? null : assertValidDate(tideCutOffAt, 'tideCutOffAt'),
     astronomicalDawn: report.astronomicalDawn?.utc ?? null,
   };
 }

@@ -166,5 +166,6 @@ describe('nightEventsFromReport', () => {
     const report = { astronomicalDusk: null, astronomicalDawn: null, moonrise: local('2027-06-21T23:10:00Z'), moonEvents: [] } as unknown as NightReport;
     expect(nightEventsFromReport(report)).toMatchObject({ astronomicalDusk: null, moonrise: at('2027-06-21T23:10:00Z'), lineupStart: null, tideCutOff: null });
     expect(() => nightEventsFromReport(null as never)).toThrow(RangeError);
+    expect(() => nightEventsFromReport(report, null, new Date(Number.NaN))).toThrow(/tideCutOffAt/);
   });
 });
