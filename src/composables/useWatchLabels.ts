@@ -1,6 +1,4 @@
-import type { TargetRef } from '../../shared/schemas/lineup';
 import { WEEKDAYS, weekdayNames, type Watch, type WatchDeliveryStatus } from '../../shared/schemas/watch';
-import { findTarget } from '../../shared/sky';
 import { durationText } from './useLineupTime';
 
 /** One lead time in words: 0 is 'on the day', 1 'one day before', n 'n days before'. */
@@ -32,12 +30,6 @@ export function conditionParts(w: Pick<Watch, 'minScore' | 'minDurationMin' | 'r
   if (w.reachableOnly) parts.push('reachable by the tide only');
   parts.push(weekdaysText(w.weekdays));
   return parts;
-}
-
-/** A target reference's display name (catalogue name, or the custom name with its position). */
-export function targetRefName(target: TargetRef): string {
-  if ('id' in target) return findTarget(target.id)?.name ?? target.id;
-  return `${target.name} (RA ${target.raHours.toFixed(2)} h, Dec ${target.decDeg.toFixed(2)}°)`;
 }
 
 /** Words and tag type for the state of one e-mail. */
