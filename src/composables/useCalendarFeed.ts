@@ -44,6 +44,8 @@ export function useCalendarFeed() {
       content: 'The old address stops working at once: calendars subscribed to it stop showing your lineups until you give them the new one.',
       positiveText: 'Make a new address',
       negativeText: 'Keep the old one',
+      // Attributes fall through to the button element, for browser tests.
+      positiveButtonProps: { 'data-testid': 'calendar-feed-rotate-confirm' } as never,
       onPositiveClick: async () => {
         rotating.value = true;
         try {

@@ -36,6 +36,7 @@ export function useWatchActions() {
       content: `You will get no more e-mails about ${watch.targetName} at ${watch.sightlineName}, and its lineups leave your calendar feed. This cannot be undone.`,
       positiveText: 'Delete',
       negativeText: 'Keep it',
+      // Attributes fall through to the button element, for browser tests.
       positiveButtonProps: { 'data-testid': 'watch-delete-confirm' } as never,
       onPositiveClick: async () => {
         try {
