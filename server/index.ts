@@ -1,4 +1,5 @@
 import type { Server } from 'node:http';
+import type { Express } from 'express';
 import { pathToFileURL } from 'node:url';
 import { resolve } from 'node:path';
 import { createApp, watchSchedulerOf } from './app';
@@ -10,6 +11,8 @@ export interface RunningServer {
   url: string;
   server: Server;
   database: Database;
+  /** The Express app being served. */
+  app: Express;
   /** The config the app runs with (SMTP_URL points at the local fake when it runs). */
   config: Config;
   /** The local SMTP fake, when this start runs it. */
@@ -78,6 +81,7 @@ export async function startServer({ config: given, databaseUrl, jwtSecret, clien
   return {
     url: `http://${config.host}:${port}`,
     server: listening,
+    app: started,
     database,
     config,
     smtpFake,

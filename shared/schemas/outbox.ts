@@ -47,7 +47,7 @@ export const outboxAttachmentSchema = z.object({
  * a sandboxed frame (iframe sandbox with no permissions, srcdoc), never inline in the page.
  */
 export const outboxMessageSchema = outboxSummarySchema.extend({
-  /** Header From / To as text, e.g. 'Gnomon <watches@gnomon.localhost>'. */
+  /** Header From / To as text, e.g. '"Gnomon watches" <watches@gnomon.localhost>'. */
   from: z.string(),
   to: z.string(),
   /** Date header (ISO), null when missing. */

@@ -1,12 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { watchListResponseSchema, watchResponseSchema } from '../../shared/schemas/watch';
+import { WatchModel } from '../../server/models/watch';
 import { createTestContext, createUser, signedInAgent, type TestContext } from './helpers';
 import { createSightline } from './watches-fixture';
 
 let ctx: TestContext;
 beforeAll(async () => { ctx = await createTestContext(); });
-afterAll(async () => { await ctx.db.close(); });
+afterAll(async () => {
+  // Active watches left behind would be scanned by the scheduler tests that run later.
+  await WatchModel.destroy({ where: {} });
+  await ctx.db.close();
+});
 
 // An invented site on a real coastline (50.6 N, Europe/London).
 const coast = {

@@ -1,0 +1,49 @@
+/**
+ * The server start as `npm start` does it: without SMTP_URL the local SMTP fake runs and the watch
+ * scheduler sends to it; shutdown stops the scheduler, the fake and the database connection.
+ */
+import { describe, expect, inject, it } from 'vitest';
+import nodemailer from 'nodemailer';
+import { watchSchedulerOf } from '../../server/app';
+import { loadConfig } from '../../server/config';
+import { startServer } from '../../server/index';
+import { OutboxMessageModel } from '../../server/models/outbox-message';
+import { TEST_JWT_SECRET } from './helpers';
+
+const env = { NODE_ENV: 'test', PORT: '0', BCRYPT_ROUNDS: '4', SMTP_FAKE_PORT: '0', WATCHES_ENABLED: 'true' };
+
+describe('startServer with the SMTP fake', () => {
+  it('starts the fake on 127.0.0.1 when SMTP_URL is unset, runs the scheduler, and stops everything on close', async () => {
+    const running = await startServer({ config: loadConfig(env), databaseUrl: inject('databaseUrl'), jwtSecret: TEST_JWT_SECRET, smtpFake: true });
+    try {
+      expect(running.smtpFake).toBeDefined();
+      expect(running.config.smtpUrl).toBe(`smtp://127.0.0.1:${running.smtpFake!.port}`);
+      const transport = nodemailer.createTransport({ url: running.config.smtpUrl });
+      await transport.sendMail({ from: 'a@example.test', to: 'b@example.test', subject: 'Through the running fake', text: 'x' });
+      transport.close();
+      expect(await OutboxMessageModel.count({ where: { subject: 'Through the running fake' } })).toBe(1);
+      const health = await fetch(`${running.url}/api/health`);
+      expect(health.status).toBe(200);
+    } finally {
+      await running.close();
+    }
+    // Closed: the fake no longer accepts connections.
+    const transport = nodemailer.createTransport({ url: running.config.smtpUrl, connectionTimeout: 2000 });
+    await expect(transport.sendMail({ from: 'a@example.test', to: 'b@example.test', subject: 'After close', text: 'x' })).rejects.toThrow();
+  }, 60_000);
+
+  it('uses SMTP_URL when it is set (no fake); the scheduler runs, and stops on close', async () => {
+    const running = await startServer({
+      config: loadConfig({ ...env, SMTP_URL: 'smtp://127.0.0.1:9' }), databaseUrl: inject('databaseUrl'), jwtSecret: TEST_JWT_SECRET, smtpFake: true,
+    });
+    try {
+      expect(running.smtpFake).toBeUndefined();
+      expect(running.config.smtpUrl).toBe('smtp://127.0.0.1:9');
+      const scheduler = watchSchedulerOf(running.app);
+      expect(scheduler.running).toBe(true);
+    } finally {
+      await running.close();
+    }
+    expect(watchSchedulerOf(running.app).running).toBe(false);
+  }, 60_000);
+});
