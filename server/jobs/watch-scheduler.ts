@@ -20,6 +20,11 @@ export const SEND_QUEUE = 'watch-send';
 export const JOB_SCHEMA = 'pgboss';
 /** Every scan job carries this key: the singleton queue then runs one scan at a time. */
 const SCAN_KEY = 'scan';
+/**
+ * A scan running longer than this is taken as lost (its app copy died) and retried: one scan runs at
+ * a time, so a lost one must not hold the others back for the queue's default of 15 minutes.
+ */
+const SCAN_EXPIRE_SECONDS = 600;
 
 export type Clock = () => Date;
 export const systemClock: Clock = () => new Date();
@@ -153,7 +158,7 @@ export class WatchScheduler {
   /** The periodic offer: at most one scan job per interval slot, whichever app copy offers first. */
   private async offerScan(): Promise<void> {
     try {
-      await this.boss?.send(SCAN_QUEUE, {}, { singletonSeconds: this.options.scanIntervalSeconds, singletonKey: SCAN_KEY });
+      await this.boss?.send(SCAN_QUEUE, {}, { singletonSeconds: this.options.scanIntervalSeconds, singletonKey: SCAN_KEY, expireInSeconds: SCAN_EXPIRE_SECONDS });
     } catch (error) {
       if (this.options.log) console.error('Watch scan could not be queued:', error instanceof Error ? error.message : error);
     }
@@ -162,7 +167,7 @@ export class WatchScheduler {
   /** Queues a scan now (outside the interval) and wakes the scan worker. */
   async scanNow(): Promise<void> {
     const boss = this.requireStarted();
-    await boss.send(SCAN_QUEUE, {}, { singletonKey: SCAN_KEY });
+    await boss.send(SCAN_QUEUE, {}, { singletonKey: SCAN_KEY, expireInSeconds: SCAN_EXPIRE_SECONDS });
     boss.notifyWorker(this.workerIds[SCAN_QUEUE]!);
   }
 

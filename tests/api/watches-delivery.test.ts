@@ -123,6 +123,10 @@ describe('watch e-mails', () => {
     expect(mail.headerLines.find((h) => h.key === 'list-unsubscribe')?.line).toMatch(/<http:\/\/gnomon\.test:8080\/api\/watches\/unsubscribe\?token=[^>]+>/);
     expect(mail.headerLines.find((h) => h.key === 'list-unsubscribe-post')?.line).toMatch(/List-Unsubscribe=One-Click/);
 
+    const shown = (await agent.get(`/api/watches/${watchId}`)).body.watch;
+    expect(Date.parse(shown.lastSentAt)).toBeGreaterThan(Date.now() - 60_000);
+    expect((await agent.get('/api/watches')).body.watches[0].lastSentAt).toBe(shown.lastSentAt);
+
     // Deterministic Message-ID from (watch, lineup start, lead).
     const delivery = await WatchDeliveryModel.findOne({ where: { watchId } });
     expect(delivery).toMatchObject({ status: 'sent', leadDays: 3, attempts: 1, recipient: user.email });

@@ -5,7 +5,7 @@
 import { describe, expect, inject, it } from 'vitest';
 import nodemailer from 'nodemailer';
 import { watchSchedulerOf } from '../../server/app';
-import { loadConfig } from '../../server/config';
+import { ConfigError, loadConfig } from '../../server/config';
 import { startServer } from '../../server/index';
 import { OutboxMessageModel } from '../../server/models/outbox-message';
 import { TEST_JWT_SECRET } from './helpers';
@@ -46,4 +46,30 @@ describe('startServer with the SMTP fake', () => {
     }
     expect(watchSchedulerOf(running.app).running).toBe(false);
   }, 60_000);
+});
+
+describe('watch and mail settings', () => {
+  it('has defaults: the app address for links, a From address, the fake on 2525, a scan every 5 minutes, watches on outside tests', () => {
+    const c = loadConfig({});
+    expect(c).toMatchObject({
+      smtpUrl: undefined, appUrl: 'http://127.0.0.1:8080', mailFrom: 'Gnomon watches <watches@gnomon.localhost>',
+      smtpFakePort: 2525, watchScanIntervalSeconds: 300, watchesEnabled: true,
+    });
+    expect(loadConfig({ NODE_ENV: 'test' }).watchesEnabled).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'test', WATCHES_ENABLED: '1' }).watchesEnabled).toBe(true);
+    expect(loadConfig({ APP_URL: 'https://gnomon.example.org/' }).appUrl).toBe('https://gnomon.example.org');
+  });
+
+  it.each([
+    ['SMTP_URL', 'http://mail.example.org'],
+    ['SMTP_URL', 'not a url'],
+    ['MAIL_FROM', 'nobody'],
+    ['APP_URL', 'ftp://gnomon.example.org'],
+    ['SMTP_FAKE_PORT', '70000'],
+    ['WATCH_SCAN_INTERVAL_SECONDS', '1'],
+    ['WATCHES_ENABLED', 'perhaps'],
+  ])('refuses %s=%s with a line naming the variable', (key, value) => {
+    expect(() => loadConfig({ [key]: value })).toThrow(ConfigError);
+    expect(() => loadConfig({ [key]: value })).toThrow(new RegExp(`\\n  ${key}: `));
+  });
 });
