@@ -20,6 +20,7 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { Lineup } from '../../shared/schemas/lineup';
+import { AppError } from '../errors';
 import { FieldNoteModel } from '../models/field-note';
 import { SightlineModel } from '../models/sightline';
 import { UserModel } from '../models/user';
@@ -120,6 +121,8 @@ export class WatchDeliveryService {
         found = await this.finder.find(watch, owner, scanRange(now, Math.max(...watch.leadDays)));
       } catch (error) {
         failedWatches += 1;
+        // The owner can no longer read the sightline (e.g. left its crew): nothing to announce.
+        if (error instanceof AppError && (error.code === 'not_found' || error.code === 'forbidden')) continue;
         console.error(`Watch ${watch.id}: the lineup search failed:`, errorText(error));
         continue;
       }

@@ -16,6 +16,8 @@ declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string;
     artifactsDir: string;
+    /** The local SMTP fake of the served app (mail sent here shows in the Outbox). */
+    smtpUrl: string;
   }
 }
 
@@ -29,10 +31,12 @@ export default async function setup(project: TestProject) {
 
   const databaseUrl = process.env.GNOMON_TEST_DATABASE_URL;
   if (!databaseUrl) throw new Error('tests/setup/database.ts must run before app-server.ts');
-  const config = loadConfig({ NODE_ENV: 'test', PORT: '0', BCRYPT_ROUNDS: '4' });
-  const running = await startServer({ config, databaseUrl, jwtSecret: 'e2e-secret-long-enough-for-hs256-signing', clientDir });
+  // The SMTP fake on a free port, as `npm start` runs it; the watch scheduler stays off (NODE_ENV=test).
+  const config = loadConfig({ NODE_ENV: 'test', PORT: '0', BCRYPT_ROUNDS: '4', SMTP_FAKE_PORT: '0' });
+  const running = await startServer({ config, databaseUrl, jwtSecret: 'e2e-secret-long-enough-for-hs256-signing', clientDir, smtpFake: true });
   await seedDemo(new AuthService(4), running.database.sequelize);
   project.provide('baseUrl', running.url);
   project.provide('artifactsDir', artifactsDir);
+  project.provide('smtpUrl', running.config.smtpUrl!);
   return () => running.close();
 }
