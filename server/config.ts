@@ -1,5 +1,6 @@
 import { join } from 'node:path';
 import { z } from 'zod';
+import { photoStorageEnvCheck, photoStorageEnvShape, photoStorageOptionsFromEnv, type PhotoStorageOptions } from './storage';
 
 const booleanFromEnv = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
 
@@ -32,7 +33,11 @@ const envSchema = z.object({
   WATCH_SCAN_INTERVAL_SECONDS: z.coerce.number({ error: 'WATCH_SCAN_INTERVAL_SECONDS must be a number of seconds' }).int()
     .min(5, 'WATCH_SCAN_INTERVAL_SECONDS must be at least 5').max(86_400, 'WATCH_SCAN_INTERVAL_SECONDS must be at most 86400 (a day)').default(300),
   WATCHES_ENABLED: booleanFromEnv.optional(),
-});
+  FORECAST_BASE_URL: z.url({ protocol: /^https?$/, error: 'FORECAST_BASE_URL must be an http(s):// URL, e.g. https://api.open-meteo.com' }).optional(),
+  FORECAST_TIMEOUT_MS: z.coerce.number({ error: 'FORECAST_TIMEOUT_MS must be a number of milliseconds' }).int().min(100, 'FORECAST_TIMEOUT_MS must be at least 100').max(60_000, 'FORECAST_TIMEOUT_MS must be at most 60000').default(8000),
+  FORECAST_FAKE_PORT: z.coerce.number({ error: 'FORECAST_FAKE_PORT must be a port number' }).int().min(0).max(65535).default(0),
+  ...photoStorageEnvShape,
+}).check(photoStorageEnvCheck);
 
 export type Env = z.infer<typeof envSchema>;
 
@@ -73,6 +78,14 @@ export interface Config {
   watchScanIntervalSeconds: number;
   /** Runs the watch scheduler (default: on, except with NODE_ENV=test). */
   watchesEnabled: boolean;
+  /** Forecast service for the sky outlook; unset means `npm start` runs the local fake (elsewhere: "forecast unavailable"). */
+  forecastBaseUrl?: string;
+  /** Longest wait for one forecast call, ms (default 8000). */
+  forecastTimeoutMs: number;
+  /** Port of the local forecast fake on 127.0.0.1 (0: any free port). */
+  forecastFakePort: number;
+  /** Photo storage driver and its settings (PHOTO_STORAGE, S3_*); the local driver uses photoDir. */
+  photoStorage: PhotoStorageOptions;
 }
 
 export class ConfigError extends Error {
@@ -91,6 +104,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
   }
   const e = parsed.data;
+  const photoDir = e.PHOTO_DIR ?? join(e.GNOMON_DATA_DIR, 'photos');
   return {
     nodeEnv: e.NODE_ENV,
     host: e.HOST,
@@ -105,7 +119,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     loginWindowMinutes: e.LOGIN_WINDOW_MINUTES,
     bcryptRounds: e.BCRYPT_ROUNDS,
     logRequests: e.LOG_REQUESTS,
-    photoDir: e.PHOTO_DIR ?? join(e.GNOMON_DATA_DIR, 'photos'),
+    photoDir,
+    photoStorage: photoStorageOptionsFromEnv(e, photoDir),
     photoMaxBytes: e.PHOTO_MAX_BYTES,
     photoMaxPixels: e.PHOTO_MAX_PIXELS,
     photosPerSightline: e.PHOTOS_PER_SIGHTLINE,
@@ -115,5 +130,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     smtpFakePort: e.SMTP_FAKE_PORT,
     watchScanIntervalSeconds: e.WATCH_SCAN_INTERVAL_SECONDS,
     watchesEnabled: e.WATCHES_ENABLED ?? e.NODE_ENV !== 'test',
+    forecastBaseUrl: e.FORECAST_BASE_URL?.replace(/\/+$/, ''),
+    forecastTimeoutMs: e.FORECAST_TIMEOUT_MS,
+    forecastFakePort: e.FORECAST_FAKE_PORT,
   };
 }

@@ -1,7 +1,8 @@
 /**
  * The local runtime behind `npm start` and `npm run dev`: PostgreSQL from Debian's packages on
  * loopback (unless DATABASE_URL is set), migrations, demo data, the app server, and (unless
- * SMTP_URL is set) the local SMTP fake that keeps every watch e-mail in the outbox.
+ * SMTP_URL is set) the local SMTP fake that keeps every watch e-mail in the outbox, and (unless
+ * FORECAST_BASE_URL is set) a local fake of the forecast service.
  */
 import { join, resolve } from 'node:path';
 import type { Config } from './config';
@@ -11,6 +12,7 @@ import { installProcessHandlers, startServer, type RunningServer } from './index
 import { loadOrCreateJwtSecret } from './secrets';
 import { seedDemo, demoAccounts, DEMO_PASSWORD } from './seeders/demo';
 import { AuthService } from './services/auth-service';
+import { startFakeForecastServer, type FakeForecastServer } from './forecast/fake-forecast-server';
 
 export interface LocalRuntime {
   running: RunningServer;
@@ -42,15 +44,24 @@ export async function startLocal(config: Config, options: { serveClient: boolean
   }
 
   let running: RunningServer | undefined;
+  let forecastFake: FakeForecastServer | undefined;
   const shutdown = async () => {
     options.onShutdown?.();
     await running?.close();
+    await forecastFake?.close();
     await embedded?.stop();
   };
   installProcessHandlers(shutdown);
   try {
+    // Without FORECAST_BASE_URL the sky outlook comes from a local fake with invented skies.
+    let runConfig = config;
+    if (!config.forecastBaseUrl) {
+      forecastFake = await startFakeForecastServer({ port: config.forecastFakePort });
+      runConfig = { ...config, forecastBaseUrl: forecastFake.url };
+      console.log(`Forecast: local fake on ${forecastFake.url} with invented skies (set FORECAST_BASE_URL for a real forecast)`);
+    }
     // Without SMTP_URL the watch e-mails go to the local SMTP fake and are read in the Outbox.
-    running = await startServer({ config, databaseUrl, jwtSecret, clientDir, smtpFake: true });
+    running = await startServer({ config: runConfig, databaseUrl, jwtSecret, clientDir, smtpFake: true });
     if (running.smtpFake) {
       console.log(`Mail: local SMTP fake on 127.0.0.1:${running.smtpFake.port}; watch e-mails are stored in the Outbox (admins), never delivered`);
     } else if (running.config.smtpUrl) {
