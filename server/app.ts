@@ -21,7 +21,15 @@ import { AuthService } from './services/auth-service';
 import { TokenService } from './services/token-service';
 import { UserService } from './services/user-service';
 import { PhotoService } from './services/photo-service';
-import { LocalPhotoStorage } from './storage/local-storage';
+import { createPhotoStorage, type PhotoStorage } from './storage';
+import { ForecastClient } from './forecast/client';
+import { ForecastService } from './forecast/forecast-service';
+import { outlookRouter, sightlineOutlookRouter } from './routes/outlook';
+import { CrewService } from './services/crew-service';
+import { InviteService } from './services/invite-service';
+import { OutingService } from './services/outing-service';
+import { crewRouter, invitesRouter } from './routes/crew';
+import { outingsRouter, sightlineOutingsRouter } from './routes/outings';
 import { photosRouter, sightlinePhotosRouter } from './routes/photos';
 import { createSmtpMailer, createUnconfiguredMailer } from './mail/mailer';
 import { defaultSchedulerOptions, systemClock, WatchScheduler, type Clock, type WatchSchedulerOptions } from './jobs/watch-scheduler';
@@ -48,6 +56,8 @@ export interface AppOptions {
   clock?: Clock;
   /** Watch scheduler settings beyond the config (tests shorten the retry delays). */
   watchScheduler?: Partial<Omit<WatchSchedulerOptions, 'clock'>>;
+  /** Photo storage to use instead of the configured one (tests). */
+  photoStorage?: PhotoStorage;
 }
 
 /** A claim on a delivery older than this is taken as abandoned by a sender that died. */
@@ -59,7 +69,7 @@ export function watchSchedulerOf(app: Express): WatchScheduler {
 }
 
 /** Builds the Express app (no listen): API under /api, the built client for everything else. */
-export function createApp({ config, sequelize, jwtSecret, clientDir, clock = systemClock, watchScheduler }: AppOptions): Express {
+export function createApp({ config, sequelize, jwtSecret, clientDir, clock = systemClock, watchScheduler, photoStorage }: AppOptions): Express {
   const tokens = new TokenService(jwtSecret, config.jwtTtlHours);
   const auth = new AuthService(config.bcryptRounds);
   const users = new UserService();
@@ -68,8 +78,8 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
   const tides = new TideService(sequelize, sightlines);
   const pool = new EnginePool();
   const lineups = new LineupService(new DarkWindowCache(pool), sightlines, tides, pool);
-  // The local folder driver; an S3-compatible driver implements the same PhotoStorage interface.
-  const photos = new PhotoService(sequelize, sightlines, new LocalPhotoStorage(config.photoDir), {
+  // A local folder by default, or S3-compatible object storage (PHOTO_STORAGE=s3).
+  const photos = new PhotoService(sequelize, sightlines, photoStorage ?? createPhotoStorage(config.photoStorage), {
     maxPixels: config.photoMaxPixels,
     perSightline: config.photosPerSightline,
   });
@@ -93,6 +103,17 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
   const feeds = new CalendarFeedService(sequelize, watchLineups, config.appUrl, clock);
   const outbox = new OutboxService();
 
+  // Sky outlook: the forecast service (the local fake under `npm start`), cached in PostgreSQL.
+  const forecast = new ForecastService({
+    source: config.forecastBaseUrl ? new ForecastClient({ baseUrl: config.forecastBaseUrl, timeoutMs: config.forecastTimeoutMs }) : null,
+    sightlines,
+  });
+
+  // Crews: members and roles, e-mail invites through the same mailer, outings.
+  const crew = new CrewService(sequelize, sightlines, clock);
+  const invites = new InviteService(sequelize, sightlines, mailer, { appUrl: config.appUrl, mailFrom: config.mailFrom, jwtSecret, clock });
+  const outings = new OutingService(sightlines);
+
   const app = express();
   app.disable('x-powered-by');
   app.use(helmet({
@@ -114,8 +135,14 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
   api.use('/users', usersRouter({ users }));
   api.use('/sightlines/:id/photos', sightlinePhotosRouter({ photos, maxBytes: config.photoMaxBytes }));
   api.use('/photos', photosRouter({ photos }));
+  api.use('/sightlines/:id/outlook', sightlineOutlookRouter({ forecast }));
+  api.use('/sightlines/:id/crew', crewRouter({ crew, invites }));
+  api.use('/sightlines/:id/outings', sightlineOutingsRouter({ outings }));
   api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups, photos }));
   api.use('/lineups', lineupsRouter({ lineups }));
+  api.use('/outlook', outlookRouter({ forecast }));
+  api.use('/invites', invitesRouter({ invites }));
+  api.use('/outings', outingsRouter({ outings }));
   // The pause link works without signing in: mounted before the signed-in watch routes.
   api.use('/watches/unsubscribe', unsubscribeRouter({ unsubscribe }));
   api.use('/watches', watchesRouter({ watches }));

@@ -6,6 +6,7 @@ const statusByCode: Record<ErrorCode, number> = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  gone: 410,
   payload_too_large: 413,
   rate_limited: 429,
   internal: 500,

@@ -7,6 +7,8 @@ export const errorCodes = [
   'forbidden',
   'not_found',
   'conflict',
+  /** The thing existed but is over: an expired or withdrawn link. */
+  'gone',
   'rate_limited',
   'payload_too_large',
   'internal',

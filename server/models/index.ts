@@ -9,6 +9,11 @@ import { initWatchModel } from './watch';
 import { initWatchDeliveryModel } from './watch-delivery';
 import { initOutboxMessageModel } from './outbox-message';
 import { initCalendarFeedModel } from './calendar-feed';
+import { initForecastCacheModel } from './forecast-cache';
+import { initCrewMemberModel } from './crew-member';
+import { initCrewInviteModel } from './crew-invite';
+import { initOutingModel } from './outing';
+import { initOutingResponseModel } from './outing-response';
 
 /** Registers every model and association on the instance; call once per Sequelize instance. */
 export function initModels(sequelize: Sequelize) {
@@ -34,7 +39,22 @@ export function initModels(sequelize: Sequelize) {
   Watch.hasMany(WatchDelivery, { as: 'deliveries', foreignKey: 'watchId' });
   WatchDelivery.belongsTo(Watch, { as: 'watch', foreignKey: 'watchId' });
   CalendarFeed.belongsTo(User, { foreignKey: 'userId' });
-  return { User, DarkWindowCache, Sightline, FieldNote, TideEvent, Photo, Watch, WatchDelivery, OutboxMessage, CalendarFeed };
+  const ForecastCache = initForecastCacheModel(sequelize);
+  const CrewMember = initCrewMemberModel(sequelize);
+  const CrewInvite = initCrewInviteModel(sequelize);
+  const Outing = initOutingModel(sequelize);
+  const OutingResponse = initOutingResponseModel(sequelize);
+  CrewMember.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  CrewMember.belongsTo(Sightline, { foreignKey: 'sightlineId' });
+  Sightline.hasMany(CrewMember, { as: 'crew', foreignKey: 'sightlineId' });
+  CrewInvite.belongsTo(User, { as: 'inviter', foreignKey: 'invitedBy' });
+  CrewInvite.belongsTo(Sightline, { foreignKey: 'sightlineId' });
+  Outing.belongsTo(Sightline, { foreignKey: 'sightlineId' });
+  Outing.hasMany(OutingResponse, { as: 'responses', foreignKey: 'outingId' });
+  return {
+    User, DarkWindowCache, Sightline, FieldNote, TideEvent, Photo, Watch, WatchDelivery, OutboxMessage, CalendarFeed,
+    ForecastCache, CrewMember, CrewInvite, Outing, OutingResponse,
+  };
 }
 
 export type Models = ReturnType<typeof initModels>;
@@ -48,3 +68,8 @@ export { WatchModel } from './watch';
 export { WatchDeliveryModel } from './watch-delivery';
 export { OutboxMessageModel } from './outbox-message';
 export { CalendarFeedModel } from './calendar-feed';
+export { ForecastCacheModel } from './forecast-cache';
+export { CrewMemberModel } from './crew-member';
+export { CrewInviteModel } from './crew-invite';
+export { OutingModel } from './outing';
+export { OutingResponseModel } from './outing-response';

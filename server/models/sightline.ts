@@ -2,6 +2,7 @@ import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, t
 import type { Sightline } from '../../shared/schemas/sightline';
 import type { TideRule } from '../../shared/tide';
 import type { UserModel } from './user';
+import type { SightlineRole } from '../../shared/policy/sightline-policy';
 
 export class SightlineModel extends Model<InferAttributes<SightlineModel>, InferCreationAttributes<SightlineModel>> {
   declare id: CreationOptional<string>;
@@ -23,6 +24,8 @@ export class SightlineModel extends Model<InferAttributes<SightlineModel>, Infer
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare owner?: NonAttribute<UserModel>;
+  /** The role of the person who loaded it (set by SightlineService). */
+  declare viewerRole?: NonAttribute<SightlineRole>;
 
   toPublic(): Sightline {
     return {
@@ -39,6 +42,7 @@ export class SightlineModel extends Model<InferAttributes<SightlineModel>, Infer
       targetId: this.targetId,
       timezone: this.timezone,
       tideRule: this.tideRule ?? null,
+      myRole: this.viewerRole ?? 'owner',
       createdAt: this.createdAt.toISOString(),
       updatedAt: this.updatedAt.toISOString(),
     };

@@ -26,7 +26,7 @@ export class FieldNoteService {
     const sightline = await this.sightlines.get(user, sightlineId, 'read');
     const note = await FieldNoteModel.findOne({ where: { id: noteId, sightlineId }, include: authorInclude });
     if (!note) throw AppError.notFound('No such note');
-    if (!canChangeNote(user, sightline, note)) throw new AppError('forbidden', 'Only the author or the owner can change this note');
+    if (!canChangeNote(user, sightline.viewerRole ?? 'outsider', note)) throw new AppError('forbidden', 'Only the author or the owner can change this note');
     return note;
   }
 

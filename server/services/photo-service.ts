@@ -121,7 +121,7 @@ export class PhotoService {
       await this.sightlines.get(user, photo.sightlineId, action);
     } catch (error) {
       if (error instanceof AppError && error.code === 'not_found') throw AppError.notFound('No such photo');
-      if (error instanceof AppError && error.code === 'forbidden') throw new AppError('forbidden', 'Only the owner can change this photo');
+      if (error instanceof AppError && error.code === 'forbidden') throw new AppError('forbidden', 'Only the owner and editors can change this photo');
       throw error;
     }
     return photo;

@@ -1,11 +1,12 @@
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { SightlineInput, SightlineUpdate } from '../../shared/schemas/sightline';
 import { timeZoneForSite } from '../../shared/sky/timezone';
 import { distanceM, MAX_SIGHTLINE_DISTANCE_M } from '../../shared/geo';
 import { AppError } from '../errors';
 import { SightlineModel } from '../models/sightline';
 import { UserModel } from '../models/user';
-import { canOnSightline, type SightlineAction } from './access-policy';
+import { CrewMemberModel } from '../models/crew-member';
+import { canAs, forbiddenMessage, roleOnSightline, type SightlineAction } from './access-policy';
 
 const ownerInclude = [{ model: UserModel, as: 'owner', attributes: ['id', 'name'] }];
 
@@ -42,10 +43,16 @@ function checkPinDistance(vantage: { lat: number; lon: number }, landmark: { lat
 
 /** Saved sightlines: the pins, their heights and the site's time zone. */
 export class SightlineService {
-  /** The user's own sightlines; an admin may ask for everyone's. */
+  /** The user's own sightlines and those shared with them in a crew; an admin may ask for everyone's. */
   async list(user: UserModel, options: { all?: boolean } = {}): Promise<SightlineModel[]> {
-    const where = options.all && user.role === 'admin' ? {} : { ownerId: user.id };
-    return SightlineModel.findAll({ where, include: ownerInclude, order: [['name', 'ASC']] });
+    const memberships = await CrewMemberModel.findAll({ where: { userId: user.id } });
+    const crewRoles = new Map(memberships.map((m) => [m.sightlineId, m.role]));
+    const where = options.all && user.role === 'admin'
+      ? {}
+      : { [Op.or]: [{ ownerId: user.id }, { id: [...crewRoles.keys()] }] };
+    const list = await SightlineModel.findAll({ where, include: ownerInclude, order: [['name', 'ASC']] });
+    for (const s of list) s.viewerRole = roleOnSightline(user, s, crewRoles.get(s.id) ?? null);
+    return list;
   }
 
   /** The sightline if the user may do the action; 404 when they may not even read it, 403 otherwise. */
@@ -56,8 +63,12 @@ export class SightlineService {
       // Only the sightline row is locked: PostgreSQL refuses FOR UPDATE on the owner's outer-joined side.
       lock: transaction ? { level: transaction.LOCK.UPDATE, of: SightlineModel } : undefined,
     });
-    if (!sightline || !canOnSightline(user, sightline, 'read')) throw AppError.notFound('No such sightline');
-    if (!canOnSightline(user, sightline, action)) throw new AppError('forbidden', 'Only the owner can change this sightline');
+    if (!sightline) throw AppError.notFound('No such sightline');
+    const membership = sightline.ownerId === user.id ? null : await CrewMemberModel.findOne({ where: { sightlineId: id, userId: user.id }, transaction });
+    const role = roleOnSightline(user, sightline, membership?.role ?? null);
+    if (!canAs(role, 'read')) throw AppError.notFound('No such sightline');
+    if (!canAs(role, action)) throw new AppError('forbidden', forbiddenMessage(action));
+    sightline.viewerRole = role;
     return sightline;
   }
 

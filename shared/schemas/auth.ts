@@ -7,7 +7,7 @@ export const roles = ['admin', 'member'] as const;
 export const roleSchema = z.enum(roles);
 export type Role = z.infer<typeof roleSchema>;
 
-const emailSchema = z.string({ error: 'E-mail is required' })
+export const emailSchema = z.string({ error: 'E-mail is required' })
   .trim()
   .toLowerCase()
   .max(254, 'E-mail is too long')

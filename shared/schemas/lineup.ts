@@ -7,7 +7,7 @@ import { equatorialJ2000Schema, frameSchema, landmarkSchema, latitudeSchema, lon
 export const MAX_SEARCH_RANGE_DAYS = 3653;
 
 /** True when YYYY-MM-DD names a day that exists (2027-02-30 does not). */
-function isRealCalendarDate(ymd: string): boolean {
+export function isRealCalendarDate(ymd: string): boolean {
   const [y, m, d] = ymd.split('-').map(Number) as [number, number, number];
   const date = new Date(Date.UTC(2000, m - 1, d));
   date.setUTCFullYear(y);

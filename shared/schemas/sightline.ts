@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { sightlineRoles } from '../policy/sightline-policy';
 import { landmarkSchema, vantageSchema } from './geometry';
 import { catalogueTargetRefSchema } from './lineup';
 import { tideEventSchema, tideRuleSchema } from '../tide/schemas';
@@ -39,6 +40,8 @@ export const sightlineSchema = z.object({
   timezone: z.string(),
   /** When the spot can be reached on foot; null when tides do not matter here or no rule is set. */
   tideRule: tideRuleSchema.nullable(),
+  /** The role of the person asking: owner, editor or viewer in the crew, or admin (support). */
+  myRole: z.enum(sightlineRoles),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { inject } from 'vitest';
 import request from 'supertest';
 import type { Express } from 'express';
-import { createApp } from '../../server/app';
+import { createApp, type AppOptions } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { openDatabase, type Database } from '../../server/db/database';
 import { UserModel } from '../../server/models/user';
@@ -18,9 +18,13 @@ export interface TestContext {
 }
 
 /** The real app with test settings; a low bcrypt cost keeps the suite quick. */
-export function createTestApp(db: Database, env: Record<string, string> = {}): { app: Express; config: Config } {
+export function createTestApp(
+  db: Database,
+  env: Record<string, string> = {},
+  options: Partial<Omit<AppOptions, 'config' | 'sequelize' | 'jwtSecret'>> = {},
+): { app: Express; config: Config } {
   const config = loadConfig({ NODE_ENV: 'test', BCRYPT_ROUNDS: '4', ...env });
-  return { app: createApp({ config, sequelize: db.sequelize, jwtSecret: TEST_JWT_SECRET }), config };
+  return { app: createApp({ ...options, config, sequelize: db.sequelize, jwtSecret: TEST_JWT_SECRET }), config };
 }
 
 /**
