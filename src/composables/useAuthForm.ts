@@ -18,7 +18,8 @@ export function useAuthForm<K extends string>(submit: () => Promise<void>) {
     errors.clear();
     try {
       await submit();
-      const next = typeof route.query.next === 'string' && route.query.next.startsWith('/') ? route.query.next : '/';
+      // Only a path on this site: '//host' would leave it.
+      const next = typeof route.query.next === 'string' && route.query.next.startsWith('/') && !route.query.next.startsWith('//') ? route.query.next : '/';
       await router.push(next);
     } catch (error) {
       if (!errors.take(error)) throw error;

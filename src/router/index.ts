@@ -21,6 +21,10 @@ const routes: RouteRecordRaw[] = [
   // One sightline: lineup search and results, night chart, year view, field notes and tides.
   { path: '/sightlines/:id', name: 'sightline', component: () => import('@/views/SightlineView.vue'), meta: { requiresAuth: true, title: 'Sightline' } },
   // Watches: e-mails before coming lineups, and the secret calendar feed.
+  // An outing on a lineup night: the sightline page's state, shown for one night, readable on a phone.
+  { path: '/sightlines/:id/outings/:outingId', name: 'outing', component: () => import('@/views/OutingView.vue'), meta: { requiresAuth: true, title: 'Outing' } },
+  // An invite link from an e-mail: works signed out (to register or sign in with the invited address).
+  { path: '/invites/accept', name: 'invite-accept', component: () => import('@/views/InviteAcceptView.vue'), meta: { title: 'Crew invite' } },
   { path: '/watches', name: 'watches', component: () => import('@/views/WatchesView.vue'), meta: { requiresAuth: true, title: 'Watches' } },
   // The pause link of a watch's e-mail: works signed in or out (neither requiresAuth nor guestOnly).
   { path: '/watches/unsubscribe', name: 'watch-unsubscribe', component: () => import('@/views/WatchUnsubscribeView.vue'), meta: { title: 'Pause a watch' } },

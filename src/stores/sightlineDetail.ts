@@ -5,7 +5,7 @@ import type { Frame, ObserverSite } from '../../shared/schemas/geometry';
 import type { Sightline } from '../../shared/schemas/sightline';
 import type { TideEvent, TideRule } from '../../shared/tide';
 import { getSightline, updateSightline } from '@/api/sightlines';
-import { useSessionStore } from './session';
+import { roleAllows } from '../../shared/policy/sightline-policy';
 import * as tidesApi from '@/api/tides';
 
 /** Warnings the server kept about a saved paste (they did not stop it). */
@@ -24,10 +24,9 @@ export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
   const tideRevision = ref(0);
   let loadToken = 0;
 
-  const session = useSessionStore();
   const id = computed(() => sightline.value?.id ?? null);
-  /** True when the signed-in person may change the plan (the owner). */
-  const canEdit = computed(() => sightline.value !== null && session.user?.id === sightline.value.ownerId);
+  /** True when the signed-in person may change the plan (the owner or an editor in the crew). */
+  const canEdit = computed(() => sightline.value !== null && roleAllows(sightline.value.myRole, 'edit'));
   const timeZone = computed(() => sightline.value?.timezone ?? 'UTC');
 
   /** The camera for sky positions: ground elevation plus camera height, m. */
