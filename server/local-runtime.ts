@@ -12,6 +12,7 @@ import { installProcessHandlers, startServer, type RunningServer } from './index
 import { loadOrCreateJwtSecret } from './secrets';
 import { seedDemo, demoAccounts, DEMO_PASSWORD } from './seeders/demo';
 import { AuthService } from './services/auth-service';
+import { createPhotoStorage } from './storage';
 import { startFakeForecastServer, type FakeForecastServer } from './forecast/fake-forecast-server';
 
 export interface LocalRuntime {
@@ -67,7 +68,7 @@ export async function startLocal(config: Config, options: { serveClient: boolean
     } else if (running.config.smtpUrl) {
       console.log(`Mail: watch e-mails go to the SMTP server ${new URL(running.config.smtpUrl).host}`);
     }
-    const created = await seedDemo(new AuthService(config.bcryptRounds), running.database.sequelize);
+    const created = await seedDemo(new AuthService(config.bcryptRounds), running.database.sequelize, { photoStorage: createPhotoStorage(config.photoStorage) });
     if (created) console.log(`Demo data: ${created} account(s) and sightline(s) created`);
   } catch (error) {
     await shutdown().catch(() => undefined);

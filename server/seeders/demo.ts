@@ -17,6 +17,12 @@ import { FieldNoteService } from '../services/field-note-service';
 import { SightlineService } from '../services/sightline-service';
 import { TideService } from '../services/tide-service';
 import { demoTideLines } from './demo-tides';
+import { demoScenePhoto } from './demo-photo';
+import type { CrewRole } from '../../shared/policy/sightline-policy';
+import { CrewMemberModel } from '../models/crew-member';
+import { OutingService } from '../services/outing-service';
+import { PhotoService } from '../services/photo-service';
+import type { PhotoStorage } from '../storage/photo-storage';
 
 export const DEMO_PASSWORD = 'nightfall-demo';
 
@@ -37,6 +43,17 @@ interface DemoSightline {
    * local SMTP fake anyway, and the demo addresses are under the reserved .test domain.
    */
   watch?: Omit<WatchInputBody, 'sightlineId'>;
+  /** People of the demo in its crew. */
+  crew?: Array<{ email: string; role: CrewRole }>;
+  /** An outing this many days after seeding, meeting at a local time, at the vantage. */
+  outing?: { inDays: number; meetAt: string; meetingNote: string; gearNotes: string };
+  /** Gets the invented, calibrated daytime photo (when photo storage is given). */
+  photo?: boolean;
+}
+
+/** What the demo needs beyond the database: where photo files go (none: no demo photo). */
+export interface SeedDemoOptions {
+  photoStorage?: PhotoStorage;
 }
 
 const INVENTED_TIDES_NOTE: FieldNoteInput = {
@@ -57,6 +74,14 @@ export const demoSightlines: readonly DemoSightline[] = [
     tideRule: { mode: 'around-low', hoursBefore: 2.5, hoursAfter: 2, note: 'The cove is sand only around low water.' },
     tides: { firstLowMinutes: 4 * 60 + 10, meanRangeM: 5.2 },
     watch: { minScore: 0.4, minDurationMin: 15, reachableOnly: true, weekdays: [5, 6], leadDays: [3, 0], paused: true },
+    crew: [{ email: 'priya@demo.gnomon.test', role: 'viewer' }],
+    outing: {
+      inDays: 12,
+      meetAt: '21:30',
+      meetingNote: 'Lay-by at the top of the cove steps',
+      gearNotes: 'Head torch with a red mode, warm layers, spare batteries. Check the official tide table before we go down.',
+    },
+    photo: true,
     notes: [
       { kind: 'access', body: 'Steps down from the coast path, 15 minutes from the lay-by. Slippery when wet.' },
       { kind: 'hazard', body: 'The incoming tide fills the cove from the north side first: leave by the steps, not along the rocks.' },
@@ -89,6 +114,7 @@ export const demoSightlines: readonly DemoSightline[] = [
       bandHeightDeg: 30,
       targetId: 'galactic-centre',
     },
+    crew: [{ email: 'tomas@demo.gnomon.test', role: 'editor' }],
     notes: [
       { kind: 'access', body: 'Viewing platform by the car park; the boardwalk is lit until 23:00.' },
       { kind: 'general', body: 'Fence line: do not go past it for a lower angle, the edge is undercut.' },
@@ -114,7 +140,7 @@ export const demoSightlines: readonly DemoSightline[] = [
 ];
 
 /** Creates the demo accounts and sightlines that do not exist yet; returns how many things were created. */
-export async function seedDemo(auth: AuthService, sequelize: Sequelize): Promise<number> {
+export async function seedDemo(auth: AuthService, sequelize: Sequelize, options: SeedDemoOptions = {}): Promise<number> {
   let created = 0;
   const users = new Map<string, UserModel>();
   for (const account of demoAccounts) {
@@ -130,6 +156,8 @@ export async function seedDemo(auth: AuthService, sequelize: Sequelize): Promise
   const notes = new FieldNoteService(sightlines);
   const tides = new TideService(sequelize, sightlines);
   const watches = new WatchService(sightlines);
+  const outings = new OutingService(sightlines);
+  const photos = options.photoStorage ? new PhotoService(sequelize, sightlines, options.photoStorage, { maxPixels: 100_000_000, perSightline: 20 }) : null;
   for (const demo of demoSightlines) {
     const owner = users.get(demo.ownerEmail)!;
     if (await SightlineModel.findOne({ where: { ownerId: owner.id, name: demo.input.name } })) continue;
@@ -144,6 +172,21 @@ export async function seedDemo(auth: AuthService, sequelize: Sequelize): Promise
     // Made with its sightline only, so a watch the person deleted is not brought back. Not counted:
     // the count is of accounts and sightlines.
     if (demo.watch) await watches.create(owner, watchInputSchema.parse({ ...demo.watch, sightlineId: sightline.id }));
+    for (const member of demo.crew ?? []) {
+      await CrewMemberModel.create({ sightlineId: sightline.id, userId: users.get(member.email)!.id, role: member.role });
+    }
+    if (demo.outing) {
+      const night = DateTime.now().setZone(sightline.timezone).plus({ days: demo.outing.inDays }).toISODate()!;
+      await outings.create(owner, sightline.id, {
+        night, lineup: null, meetingPoint: { lat: sightline.vantageLat, lon: sightline.vantageLon },
+        meetingLocal: `${night}T${demo.outing.meetAt}`, meetingNote: demo.outing.meetingNote, gearNotes: demo.outing.gearNotes,
+      });
+    }
+    if (demo.photo && photos) {
+      const scene = await demoScenePhoto(sightline.toPublic());
+      const photo = await photos.add(owner, sightline.id, { buffer: scene.jpeg, originalName: scene.name });
+      await photos.calibrate(owner, photo.id, scene.calibration);
+    }
     created += 1;
   }
   return created;
