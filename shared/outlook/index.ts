@@ -1,7 +1,8 @@
 /**
  * The sky outlook of lineup windows: forecast cells, the per-window summary (badge, dew risk,
- * horizon), dew point by the Magnus form, the watch's cloud condition and "changed a lot" rule,
- * and the caution shown beside them. Pure: the forecast itself is fetched by the server.
+ * horizon), dew point by the Magnus form, the watch's cloud condition, "changed a lot" rule and
+ * send decision, the forecast's reach, hourly cloud bars, the outlook in words, and the caution
+ * shown beside them. Pure: the forecast itself is fetched by the server.
  */
 export { FORECAST_CELL_DEG, forecastCell, type ForecastCell } from './cell';
 export {
@@ -36,9 +37,15 @@ export {
   OUTLOOK_CHANGE_MEAN_CLOUD_PCT,
   OUTLOOK_CHANGE_WITH_BADGE_PCT,
   outlookChangedALot,
+  watchOutlookDecision,
   type CloudConditionResult,
   type OutlookComparison,
+  type WatchOutlookDecision,
+  type WatchOutlookReason,
 } from './watch';
+export { FORECAST_HORIZON_DAYS, forecastReach, windowReach, type ForecastReach, type WindowReach } from './horizon';
+export { cloudBars, type CloudBar } from './bars';
+export { outlookFacts, outlookLabel, outlookSummary, type OutlookFact } from './text';
 export { OUTLOOK_CAUTION } from './caution';
 export {
   cloudBadges,

@@ -83,3 +83,70 @@ export function compareOutlooks(before: SkyOutlook, after: SkyOutlook): OutlookC
 export function outlookChangedALot(before: SkyOutlook, after: SkyOutlook): boolean {
   return compareOutlooks(before, after).changedALot;
 }
+
+/** Why a watch sends, or holds back, an e-mail whose lead time is due (see {@link watchOutlookDecision}). */
+export type WatchOutlookReason =
+  /** The watch sets no cloud limit: the outlook is shown, never decides. */
+  | 'no-limit'
+  /** A complete forecast is within the limit. */
+  | 'met'
+  /** No complete forecast (beyond the horizon, the service down or slow): sent, saying so. */
+  | 'unknown'
+  /** Cloudier than the limit: held back (the next scan asks again while the lead is current). */
+  | 'not-met'
+  /** Cloudier than the limit, but the on-the-day e-mail tells of a big change since the last one. */
+  | 'changed';
+
+/** What a watch does with the sky outlook of an e-mail that is due. */
+export interface WatchOutlookDecision {
+  /** Whether the e-mail goes now. */
+  send: boolean;
+  reason: WatchOutlookReason;
+  /** The watch's condition; null when it sets no cloud limit. */
+  condition: CloudConditionResult | null;
+  /** The outlook against the one in the last e-mail sent for this lineup; null without one. */
+  change: OutlookComparison | null;
+  /** True when the outlook changed a lot since that e-mail: the e-mail says so ("still clear?"). */
+  changedALot: boolean;
+}
+
+/**
+ * Whether a watch's e-mail that is due goes out, given the sky outlook of its lineup window.
+ *
+ * - No cloud limit: it goes ('no-limit').
+ * - A limit and a complete forecast within it: it goes ('met').
+ * - A limit but no complete forecast (no forecast yet, the service down or slow): it goes and
+ *   says the outlook is unknown ('unknown'), so a forecast failure never costs a reminder.
+ * - A limit the forecast exceeds: held back ('not-met'), except the on-the-day e-mail (lead 0)
+ *   when an earlier e-mail was sent for the lineup and the outlook changed a lot since
+ *   ({@link outlookChangedALot}): that one goes as the "still clear?" update ('changed'), since
+ *   whoever was told of a clear sky should hear that it clouded over.
+ *
+ * The earlier e-mail may have been for the same lineup found a few minutes off (the sightline was
+ * nudged); its outlook is compared as if of this window.
+ *
+ * @param input.maxCloudPct - the watch's limit, % 0..100, or null for none
+ * @param input.outlook - the outlook of the lineup window now
+ * @param input.leadDays - the due lead time, whole days 0..366 (0 = on the day)
+ * @param input.previous - the outlook in the last e-mail sent for this lineup, or null
+ * @returns whether to send, why, and how the outlook compares with the earlier e-mail's
+ * @throws RangeError when the limit or the lead time is out of range
+ */
+export function watchOutlookDecision(input: {
+  maxCloudPct: number | null;
+  outlook: SkyOutlook;
+  leadDays: number;
+  previous: SkyOutlook | null;
+}): WatchOutlookDecision {
+  const { maxCloudPct, outlook, leadDays, previous } = input;
+  if (!Number.isInteger(leadDays) || leadDays < 0 || leadDays > 366) throw new RangeError(`leadDays must be an integer between 0 and 366 (got ${leadDays})`);
+  const condition = maxCloudPct === null ? null : cloudCondition(outlook, maxCloudPct);
+  const change = previous ? compareOutlooks({ ...previous, start: outlook.start, end: outlook.end }, outlook) : null;
+  const changedALot = change?.changedALot ?? false;
+  const decided = (send: boolean, reason: WatchOutlookReason): WatchOutlookDecision => ({ send, reason, condition, change, changedALot });
+  if (condition === null) return decided(true, 'no-limit');
+  if (condition === 'met') return decided(true, 'met');
+  if (condition === 'unknown') return decided(true, 'unknown');
+  if (leadDays === 0 && changedALot) return decided(true, 'changed');
+  return decided(false, 'not-met');
+}

@@ -39,6 +39,9 @@ const leadDaysSchema = z.array(
 
 const minScoreSchema = z.number({ error: 'Minimum score is a number from 0 to 1' }).finite().min(0, 'Minimum score is from 0 to 1').max(1, 'Minimum score is from 0 to 1');
 const minDurationSchema = z.number({ error: 'Minimum duration is a number of minutes' }).finite().min(0, 'Minimum duration is 0 to 1440 minutes').max(1440, 'Minimum duration is 0 to 1440 minutes');
+const MAX_CLOUD_MESSAGE = 'The cloud limit is a whole percentage from 0 to 100';
+/** At most this much cloud (mean total cloud cover over the lineup window, %), or null for no limit. */
+const maxCloudSchema = z.number({ error: MAX_CLOUD_MESSAGE }).int(MAX_CLOUD_MESSAGE).min(0, MAX_CLOUD_MESSAGE).max(100, MAX_CLOUD_MESSAGE).nullable();
 
 /** The conditions a watch's lineups must meet (beyond a dark sky: Sun below -18 deg and the Moon down). */
 const watchConditionShape = {
@@ -53,6 +56,12 @@ const watchConditionShape = {
   /** Days before the night's evening to send the e-mail (0 = on the day), sorted largest first. */
   leadDays: leadDaysSchema,
   paused: z.boolean({ error: 'Say true or false' }),
+  /**
+   * Send only when the sky outlook's mean total cloud cover over the lineup window is at most
+   * this, % 0..100 (null: no limit). Without a usable forecast (beyond the horizon, service down)
+   * the e-mail is sent anyway and says the outlook is unknown; see shared/outlook/watch.ts.
+   */
+  maxCloudPct: maxCloudSchema,
 };
 
 /** POST /api/watches */
@@ -66,6 +75,7 @@ export const watchInputSchema = z.strictObject({
   weekdays: watchConditionShape.weekdays.default([...WEEKDAYS]),
   leadDays: watchConditionShape.leadDays.default([...DEFAULT_LEAD_DAYS]),
   paused: watchConditionShape.paused.default(false),
+  maxCloudPct: watchConditionShape.maxCloudPct.default(null),
 });
 export type WatchInput = z.infer<typeof watchInputSchema>;
 /** What a client sends (defaults optional). */
@@ -80,6 +90,8 @@ export const watchUpdateSchema = z.strictObject({
   weekdays: watchConditionShape.weekdays.optional(),
   leadDays: watchConditionShape.leadDays.optional(),
   paused: watchConditionShape.paused.optional(),
+  /** null removes the limit. */
+  maxCloudPct: watchConditionShape.maxCloudPct.optional(),
 }).refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Nothing to change', path: ['_'] });
 export type WatchUpdate = z.infer<typeof watchUpdateSchema>;
 export type WatchUpdateBody = z.input<typeof watchUpdateSchema>;
@@ -100,6 +112,8 @@ export const watchSchema = z.object({
   weekdays: z.array(z.number().int().min(1).max(7)),
   leadDays: z.array(z.number().int().min(0)),
   paused: z.boolean(),
+  /** Cloud limit of the reminders, % (mean total cloud over the lineup window); null: none. */
+  maxCloudPct: z.number().int().min(0).max(100).nullable(),
   /** When the last e-mail of this watch went out (ISO), null before the first. */
   lastSentAt: z.string().nullable(),
   createdAt: z.string(),
