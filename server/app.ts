@@ -84,6 +84,14 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
     perSightline: config.photosPerSightline,
   });
 
+  // Sky outlook: the forecast service (the local fake under `npm start`), cached in PostgreSQL; on
+  // the watches' clock, so the outlook in a watch e-mail is the one for the scheduler's "now".
+  const forecast = new ForecastService({
+    source: config.forecastBaseUrl ? new ForecastClient({ baseUrl: config.forecastBaseUrl, timeoutMs: config.forecastTimeoutMs, now: clock }) : null,
+    sightlines,
+    now: clock,
+  });
+
   // Watches: e-mails through SMTP_URL (the local fake under `npm start`), a pg-boss scheduler.
   const mailer = config.smtpUrl ? createSmtpMailer(config.smtpUrl) : createUnconfiguredMailer();
   const watches = new WatchService(sightlines);
@@ -97,17 +105,11 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
     claimLeaseMs: DELIVERY_CLAIM_LEASE_MS,
     // Longer than the longest back-off wait, so a row waiting for its retry is not taken as lost.
     orphanAfterMs: Math.max(30 * 60_000, 2 * schedulerOptions.retryDelaySeconds * 2 ** schedulerOptions.retryLimit * 1000),
-  });
+  }, forecast);
   const scheduler = new WatchScheduler(sequelize, deliveries, schedulerOptions);
   const unsubscribe = new UnsubscribeService(sequelize, unsubscribeTokens);
   const feeds = new CalendarFeedService(sequelize, watchLineups, config.appUrl, clock);
   const outbox = new OutboxService();
-
-  // Sky outlook: the forecast service (the local fake under `npm start`), cached in PostgreSQL.
-  const forecast = new ForecastService({
-    source: config.forecastBaseUrl ? new ForecastClient({ baseUrl: config.forecastBaseUrl, timeoutMs: config.forecastTimeoutMs }) : null,
-    sightlines,
-  });
 
   // Crews: members and roles, e-mail invites through the same mailer, outings.
   const crew = new CrewService(sequelize, sightlines, clock);

@@ -11,8 +11,10 @@
  * `{ "error": true, "reason": ... }` as the service does.
  *
  * Test controls on the returned handle: answer 500, a malformed body (not JSON, or JSON of the
- * wrong shape), or hang (never answer) for the next n requests or until told otherwise, and a
- * request counter. With `httpControls`, the same controls are at `POST /__fake/mode` and
+ * wrong shape), or hang (never answer) for the next n requests or until told otherwise; a fixed
+ * sky (the same values, e.g. 10 % cloud, at every hour and place, until cleared); and a request
+ * counter. With `httpControls`, the same controls are at `POST /__fake/mode`,
+ * `POST /__fake/sky?cloud_cover=..` (no values: back to the invented skies) and
  * `GET /__fake/state`, for tests that run the app in another process.
  *
  * Run alone: `node --import tsx server/forecast/fake-forecast-server.ts [port]` (0 picks a free port).
@@ -112,8 +114,25 @@ function inventHour(lat: number, lon: number, hourIndex: number): Record<Forecas
   };
 }
 
+/** Values every hour takes in a fixed sky, in SI units (wind m/s); variables left out stay invented (so set temperature and dew point together). */
+export type FakeSky = Partial<Record<ForecastHourlyVariable, number>>;
+
+/** Checks a fixed sky: known variable names and finite values in the service's ranges. */
+function checkSky(sky: FakeSky): FakeSky {
+  for (const [name, value] of Object.entries(sky)) {
+    if (!(FORECAST_HOURLY_VARIABLES as readonly string[]).includes(name)) throw new RangeError(`Unknown hourly variable '${name}'`);
+    const isPct = UNITS[name as ForecastHourlyVariable] === '%';
+    if (typeof value !== 'number' || !Number.isFinite(value) || (isPct && (value < 0 || value > 100))) {
+      throw new RangeError(`${name} must be a finite number${isPct ? ' from 0 to 100' : ''} (got ${String(value)})`);
+    }
+  }
+  return { ...sky };
+}
+
 /** The fake's state: what it answers and how many requests it has seen. */
 export interface FakeForecastState {
+  /** A fixed sky over the invented one, or null. */
+  sky: FakeSky | null;
   mode: FakeForecastMode;
   /** Requests left in `mode` before it returns to 'ok'; Infinity for "until told otherwise". */
   remaining: number;
@@ -135,7 +154,7 @@ function numberParam(req: Request, name: string, min: number, max: number): numb
   return value;
 }
 
-function forecastBody(req: Request, now: Date) {
+function forecastBody(req: Request, now: Date, sky: FakeSky | null) {
   const lat = numberParam(req, 'latitude', -90, 90);
   const lon = numberParam(req, 'longitude', -180, 180);
   const daysRaw = req.query.forecast_days;
@@ -165,7 +184,7 @@ function forecastBody(req: Request, now: Date) {
   for (let i = 0; i < days * 24; i += 1) {
     const hourIndex = firstHour + i;
     time.push(new Date(hourIndex * MS_PER_HOUR).toISOString().slice(0, 16));
-    const hour = inventHour(Math.round(lat * 100) / 100, Math.round(lon * 100) / 100, hourIndex);
+    const hour = { ...inventHour(Math.round(lat * 100) / 100, Math.round(lon * 100) / 100, hourIndex), ...sky };
     for (const v of variables) {
       const value = v === 'wind_speed_10m' || v === 'wind_gusts_10m' ? round1(hour[v] * wind.perMs) : hour[v];
       series[v]!.push(value);
@@ -193,7 +212,16 @@ export function createFakeForecastApp(state: FakeForecastState, options: { httpC
 
   if (options.httpControls) {
     app.get('/__fake/state', (_req, res) => {
-      res.json({ mode: state.mode, remaining: Number.isFinite(state.remaining) ? state.remaining : null, requestCount: state.requestCount });
+      res.json({ mode: state.mode, remaining: Number.isFinite(state.remaining) ? state.remaining : null, requestCount: state.requestCount, sky: state.sky });
+    });
+    app.post('/__fake/sky', (req, res) => {
+      try {
+        const entries = Object.entries(req.query).map(([k, v]) => [k, typeof v === 'string' && v.trim() !== '' ? Number(v) : Number.NaN]);
+        state.sky = entries.length ? checkSky(Object.fromEntries(entries) as FakeSky) : null;
+        res.json({ ok: true, sky: state.sky });
+      } catch (error) {
+        res.status(400).json({ error: true, reason: (error as Error).message });
+      }
     });
     app.post('/__fake/mode', (req, res) => {
       const mode = req.query.mode;
@@ -238,7 +266,7 @@ export function createFakeForecastApp(state: FakeForecastState, options: { httpC
         break;
     }
     try {
-      res.json(forecastBody(req, state.now()));
+      res.json(forecastBody(req, state.now(), state.sky));
     } catch (error) {
       if (error instanceof BadParameter) {
         res.status(400).json({ error: true, reason: error.message });
@@ -263,6 +291,8 @@ export interface FakeForecastServer {
   readonly lastQuery: Record<string, unknown> | null;
   /** Answer in `mode` for the next `times` requests (default: until told otherwise), then 'ok'. */
   setMode(mode: FakeForecastMode, times?: number): void;
+  /** Every hour takes these values (SI units, wind m/s) until `setSky(null)` brings back the invented skies. */
+  setSky(sky: FakeSky | null): void;
   resetRequestCount(): void;
   /** Stops listening and ends hanging requests. */
   close(): Promise<void>;
@@ -281,7 +311,7 @@ export interface FakeForecastOptions {
 /** Starts the fake forecast service on 127.0.0.1. */
 export async function startFakeForecastServer(options: FakeForecastOptions = {}): Promise<FakeForecastServer> {
   const state: FakeForecastState = {
-    mode: 'ok', remaining: Infinity, requestCount: 0, lastQuery: null,
+    sky: null, mode: 'ok', remaining: Infinity, requestCount: 0, lastQuery: null,
     now: options.now ?? (() => new Date()), hanging: new Set(),
   };
   const app = createFakeForecastApp(state, { httpControls: options.httpControls });
@@ -304,6 +334,7 @@ export async function startFakeForecastServer(options: FakeForecastOptions = {})
       state.mode = mode;
       state.remaining = times;
     },
+    setSky(sky) { state.sky = sky === null ? null : checkSky(sky); },
     resetRequestCount() { state.requestCount = 0; },
     close() {
       closing ??= new Promise<void>((r) => {

@@ -1,12 +1,16 @@
 /**
  * The e-mail a watch sends for one lineup: plain text and HTML (dark background, red accents,
- * one column that reads on a phone), with the night's times in the site's time zone.
+ * one column that reads on a phone), with the night's times in the site's time zone, and the sky
+ * outlook of the lineup window (with a "still clear?" line when it changed a lot since the last
+ * e-mail for the lineup).
  */
 import { DateTime } from 'luxon';
 import type { Lineup } from '../../shared/schemas/lineup';
 import { moonIllumination } from '../../shared/sky/positions';
 import { formatLocalTime } from '../../shared/sky/timezone';
 import { TIDE_CAUTION } from '../../shared/tide';
+import { OUTLOOK_CAUTION, outlookLabel, outlookSummary, type WatchOutlookDecision } from '../../shared/outlook';
+import type { SkyOutlook } from '../../shared/schemas/outlook';
 
 /** Said with every computed lineup. */
 export const LINEUP_CAUTION =
@@ -34,6 +38,18 @@ export interface WatchEmailInput {
   /** The sightline's field notes that warn: hazard, tide and access notes. */
   cautions: readonly WatchEmailCaution[];
   links: { nightChart: string; unsubscribe: string; watches: string };
+  /** The sky outlook of the lineup window; omitted, the e-mail says nothing of the sky. */
+  outlook?: WatchEmailOutlook;
+}
+
+/** The sky outlook an e-mail shows, and how the watch judged it. */
+export interface WatchEmailOutlook {
+  outlook: SkyOutlook;
+  /** The watch's cloud limit, %; null for none. */
+  maxCloudPct: number | null;
+  decision: WatchOutlookDecision;
+  /** The outlook in the last e-mail sent for the lineup (what a change is measured from), or null. */
+  earlier: SkyOutlook | null;
 }
 
 export interface RenderedWatchEmail {
@@ -88,6 +104,36 @@ function tideText(l: Lineup, tz: string, hasTideRule: boolean): string {
   return 'unknown: the tide times do not cover this night; paste the official table';
 }
 
+/** A forecast outlook in a few words: 'clear, 8 % cloud'; others by their label. */
+function shortOutlook(o: SkyOutlook): string {
+  return o.status === 'forecast' ? `${o.badge}, ${Math.round(o.meanCloudPct)} % cloud` : outlookLabel(o);
+}
+
+/** The rows, the "still clear?" line and the subject prefix of the sky outlook. */
+function outlookParts(input: WatchEmailOutlook | undefined, tz: string): { rows: Array<[string, string]>; change: string | null; subjectPrefix: string } {
+  if (!input) return { rows: [], change: null, subjectPrefix: '' };
+  const { outlook: o, maxCloudPct, decision } = input;
+  const rows: Array<[string, string]> = [['Sky outlook', outlookSummary(o)]];
+  if (o.status === 'forecast') rows.push(['Forecast made', formatLocalTime(new Date(o.issuedAt), tz)]);
+  if (o.status === 'no-forecast-yet' && o.issuedAt) rows.push(['Forecast made', formatLocalTime(new Date(o.issuedAt), tz)]);
+  if (maxCloudPct !== null) {
+    const limit = `at most ${maxCloudPct} % cloud`;
+    const verdict = decision.reason === 'met' ? `${limit}: within it`
+      : decision.reason === 'unknown' ? `${limit}: the outlook is unknown, so this e-mail is sent anyway`
+        : decision.reason === 'changed' ? `${limit}: cloudier now; sent because the outlook changed a lot since the last e-mail`
+          : limit;
+    rows.push(['Your cloud limit', verdict]);
+  }
+  const change = decision.change;
+  const earlier = input.earlier;
+  if (!decision.changedALot || !change || earlier?.status !== 'forecast' || o.status !== 'forecast') return { rows, change: null, subjectPrefix: '' };
+  const cloudier = (change.meanCloudChangePct ?? 0) > 0;
+  const then = `${shortOutlook(earlier)} (forecast made ${formatLocalTime(new Date(earlier.issuedAt), tz)})`;
+  const text = `${cloudier ? 'Still clear? No: the' : 'Clearer now: the'} sky outlook changed a lot since our last e-mail: then ${then}, now ${shortOutlook(o)}.`;
+  const subjectPrefix = cloudier ? `Still clear? Now ${shortOutlook(o)}. ` : `Clearer now, ${Math.round(o.meanCloudPct)} % cloud. `;
+  return { rows, change: text, subjectPrefix };
+}
+
 /** The subject, plain text and HTML of a watch e-mail. */
 export function renderWatchEmail(input: WatchEmailInput): RenderedWatchEmail {
   const { lineup: l, timezone: tz } = input;
@@ -97,7 +143,8 @@ export function renderWatchEmail(input: WatchEmailInput): RenderedWatchEmail {
   const nightName = night.setLocale('en-GB').toFormat('cccc d LLLL yyyy');
   const when = whenText(nightIso, input.now, tz);
   const startText = formatLocalTime(start, tz);
-  const subject = `Lineup ${when}: ${input.targetName} at ${input.sightlineName}, ${night.setLocale('en-GB').toFormat('ccc d LLL')} ${localClock(start, tz)}`;
+  const sky = outlookParts(input.outlook, tz);
+  const subject = `${sky.subjectPrefix}Lineup ${when}: ${input.targetName} at ${input.sightlineName}, ${night.setLocale('en-GB').toFormat('ccc d LLL')} ${localClock(start, tz)}`;
 
   const rows: Array<[string, string]> = [
     ['Night', `${nightName} (times in ${tz})`],
@@ -109,10 +156,12 @@ export function renderWatchEmail(input: WatchEmailInput): RenderedWatchEmail {
     ['Moon', moonText(l)],
     ['Sun at the peak', `${l.sunAltitudeDeg.toFixed(1)}°`],
     ['Tide', tideText(l, tz, input.hasTideRule)],
+    ...sky.rows,
   ];
   const cautions = [
     ...input.cautions.map((c) => `${c.kind === 'hazard' ? 'Hazard' : c.kind === 'tide' ? 'Tide' : c.kind === 'access' ? 'Access' : 'Note'}: ${c.body}`),
     ...(input.hasTideRule ? [TIDE_CAUTION] : []),
+    ...(input.outlook ? [OUTLOOK_CAUTION] : []),
     NIGHT_CAUTION,
     LINEUP_CAUTION,
   ];
@@ -120,6 +169,7 @@ export function renderWatchEmail(input: WatchEmailInput): RenderedWatchEmail {
 
   const text = [
     `${input.targetName} lines up at ${input.sightlineName} ${when}.`,
+    ...(sky.change ? ['', sky.change] : []),
     '',
     ...rows.map(([k, v]) => `${k}: ${v}`),
     `UTC: ${l.start.slice(0, 16).replace('T', ' ')} to ${l.end.slice(0, 16).replace('T', ' ')}`,
@@ -146,7 +196,7 @@ export function renderWatchEmail(input: WatchEmailInput): RenderedWatchEmail {
 <table role="presentation" width="100%" cellpadding="0" cellspacing="0" style="max-width:560px;background:${c.card};border:1px solid ${c.line};border-radius:8px;">
 <tr><td style="padding:18px 18px 4px 18px;color:${c.dim};font-size:13px;letter-spacing:0.08em;text-transform:uppercase;">Gnomon watch</td></tr>
 <tr><td style="padding:0 18px 8px 18px;"><h1 style="margin:0;font-size:22px;line-height:1.25;color:${c.text};font-weight:600;">${escapeHtml(input.targetName)} lines up at ${escapeHtml(input.sightlineName)} ${escapeHtml(when)}</h1></td></tr>
-<tr><td style="padding:4px 18px 12px 18px;">
+${sky.change ? `<tr><td style="padding:0 18px 8px 18px;"><p style="margin:0;padding:10px 12px;border:1px solid ${c.button};border-radius:6px;color:${c.text};font-weight:600;">${escapeHtml(sky.change)}</p></td></tr>\n` : ''}<tr><td style="padding:4px 18px 12px 18px;">
 <table role="presentation" width="100%" cellpadding="0" cellspacing="0" style="color:${c.text};font-size:15px;">
 ${rows.map(([k, v]) => `<tr><td style="${cell}color:${c.dim};width:38%;padding-right:8px;">${escapeHtml(k)}</td><td style="${cell}">${escapeHtml(v)}</td></tr>`).join('\n')}
 </table></td></tr>

@@ -20,6 +20,8 @@ export class WatchModel extends Model<InferAttributes<WatchModel>, InferCreation
   declare weekdays: number[];
   declare leadDays: number[];
   declare paused: boolean;
+  /** Cloud limit of the reminders, % 0..100 (mean total cloud over the lineup window); null: none. */
+  declare maxCloudPct: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare sightline?: NonAttribute<SightlineModel>;
@@ -40,6 +42,7 @@ export class WatchModel extends Model<InferAttributes<WatchModel>, InferCreation
       weekdays: [...this.weekdays].sort((a, b) => a - b),
       leadDays: [...this.leadDays].sort((a, b) => b - a),
       paused: this.paused,
+      maxCloudPct: this.maxCloudPct ?? null,
       lastSentAt: lastSentAt?.toISOString() ?? null,
       createdAt: this.createdAt.toISOString(),
       updatedAt: this.updatedAt.toISOString(),
@@ -60,6 +63,7 @@ export function initWatchModel(sequelize: Sequelize): typeof WatchModel {
       weekdays: { type: DataTypes.ARRAY(DataTypes.SMALLINT), allowNull: false },
       leadDays: { type: DataTypes.ARRAY(DataTypes.SMALLINT), allowNull: false },
       paused: { type: DataTypes.BOOLEAN, allowNull: false },
+      maxCloudPct: { type: DataTypes.SMALLINT, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

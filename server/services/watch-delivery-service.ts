@@ -16,10 +16,29 @@
  * message and the process died (or lost the database) before step 3. The e-mail is then sent again
  * after the lease, with the same Message-ID (derived from the row's unique key), so the copy is
  * visible as a duplicate and mail programs that remove duplicates by Message-ID drop it.
+ *
+ * The sky outlook (see shared/outlook/watch.ts, watchOutlookDecision):
+ * - Every e-mail shows the outlook of its lineup window (badge, mean cloud, dew risk, when the
+ *   forecast was made), as the forecast service gives it at sending time, and keeps it in the
+ *   delivery's `outlook` column.
+ * - A watch with a cloud limit (maxCloudPct) is judged when the scan would record the e-mail:
+ *   cloudier than the limit, nothing is recorded, and each later scan asks again while that lead
+ *   time is current (a sky that clears a day later still gets its reminder, late). Without a
+ *   usable forecast (beyond the horizon, the service down, slow or not set up) the e-mail goes
+ *   anyway and says the outlook is unknown: a forecast failure never holds back or breaks a mail.
+ * - The send step judges again with the outlook it puts in the e-mail. If the sky clouded over in
+ *   between (a retry hours later), the row is withdrawn (deleted: no e-mail went out, so nothing
+ *   can be sent twice) and a later scan may record it again.
+ * - "Still clear?": the on-the-day e-mail (lead 0) compares its outlook with the one in the last
+ *   e-mail sent for the same lineup. When it changed a lot, the subject and the text say so, and a
+ *   cloud limit does not hold that e-mail back. It is the lead-0 delivery itself, under the same
+ *   unique key, not an extra e-mail: one e-mail per lineup and lead time, as before.
  */
 import { randomUUID } from 'node:crypto';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { Lineup } from '../../shared/schemas/lineup';
+import { skyOutlookSchema, type SkyOutlook } from '../../shared/schemas/outlook';
+import { unavailableOutlooks, watchOutlookDecision, type TimeWindow, type WatchOutlookDecision } from '../../shared/outlook';
 import { AppError } from '../errors';
 import { FieldNoteModel } from '../models/field-note';
 import { SightlineModel } from '../models/sightline';
@@ -27,7 +46,7 @@ import { UserModel } from '../models/user';
 import { WatchModel } from '../models/watch';
 import { WatchDeliveryModel, type DeliverySnapshot } from '../models/watch-delivery';
 import type { Mailer } from '../mail/mailer';
-import { renderWatchEmail, type WatchEmailCaution } from '../mail/watch-email';
+import { renderWatchEmail, type WatchEmailCaution, type WatchEmailOutlook } from '../mail/watch-email';
 import { watchedLineupsToIcs } from '../mail/watch-ics';
 import type { UnsubscribeTokens } from './unsubscribe-tokens';
 import type { WatchLineups } from './watch-lineups';
@@ -51,6 +70,19 @@ export interface ScanResult {
   created: number;
   /** Watches whose search failed (logged; the others go on). */
   failedWatches: number;
+  /** Due e-mails held back because the outlook is cloudier than the watch's limit (asked again next scan). */
+  heldBackByCloud: number;
+}
+
+/** The sky outlook of lineup windows at a position (the ForecastService); never throws on a service failure. */
+export interface OutlookSource {
+  outlookFor(lat: number, lon: number, windows: readonly TimeWindow[]): Promise<SkyOutlook[]>;
+}
+
+/** An earlier e-mail of a lineup: when it went and the outlook it showed. */
+interface EarlierMail {
+  sentAt: Date;
+  outlook: SkyOutlook;
 }
 
 export type SendOutcome = 'sent' | 'skipped' | 'failed' | 'not-claimed';
@@ -66,6 +98,8 @@ const MAX_NOTE_CHARS = 600;
 /** Lineups of one watch and lead this close are taken as the same lineup, minutes. */
 const SAME_LINEUP_MINUTES = 30;
 const NOTE_ORDER: Record<string, number> = { hazard: 0, tide: 1, access: 2, general: 3 };
+/** Said in an outlook when no forecast service is given to the watches. */
+const NO_FORECAST_MESSAGE = 'No forecast service is set up on this server';
 
 function compactUtc(d: Date): string {
   return d.toISOString().slice(0, 16).replace(/[-:]/g, '');
@@ -92,7 +126,63 @@ export class WatchDeliveryService {
     private readonly mailer: Mailer,
     private readonly tokens: UnsubscribeTokens,
     private readonly settings: DeliverySettings,
+    /** The sky outlook; without it every outlook is 'unavailable' and cloud limits never hold a mail back. */
+    private readonly forecast: OutlookSource | null = null,
   ) {}
+
+  /**
+   * The outlooks of lineup windows at the watch's vantage. Any failure, even an unexpected one,
+   * becomes 'unavailable' outlooks: the outlook never stops a scan or an e-mail.
+   */
+  private async outlooksOf(watch: WatchModel, windows: readonly TimeWindow[]): Promise<SkyOutlook[]> {
+    if (windows.length === 0) return [];
+    if (!this.forecast || !watch.sightline) return unavailableOutlooks(windows, NO_FORECAST_MESSAGE);
+    try {
+      return await this.forecast.outlookFor(watch.sightline.vantageLat, watch.sightline.vantageLon, windows);
+    } catch (error) {
+      console.error(`Watch ${watch.id}: the sky outlook failed:`, errorText(error));
+      return unavailableOutlooks(windows, 'The forecast is unavailable just now');
+    }
+  }
+
+  /** The last e-mail sent for a lineup with a longer lead than `leadDays` that showed an outlook. */
+  private async earlierMail(watchId: string, lineupStart: Date, leadDays: number): Promise<EarlierMail | null> {
+    const rows = await this.sequelize.query<{ sent_at: Date; outlook: unknown }>(
+      `SELECT sent_at, outlook FROM watch_deliveries
+       WHERE watch_id = :watchId AND lead_days > :leadDays AND status = 'sent' AND outlook IS NOT NULL
+         AND lineup_start BETWEEN CAST(:lineupStart AS timestamptz) - interval '${SAME_LINEUP_MINUTES} minutes'
+                              AND CAST(:lineupStart AS timestamptz) + interval '${SAME_LINEUP_MINUTES} minutes'
+       ORDER BY sent_at DESC LIMIT 1`,
+      { type: QueryTypes.SELECT, replacements: { watchId, leadDays, lineupStart } },
+    );
+    const row = rows[0];
+    if (!row) return null;
+    const parsed = skyOutlookSchema.safeParse(row.outlook);
+    // A row kept in an older shape is no baseline; the e-mail goes on without the comparison.
+    return parsed.success ? { sentAt: new Date(row.sent_at), outlook: parsed.data } : null;
+  }
+
+  /** The decision for one due e-mail, looking up the earlier e-mail only when it can matter. */
+  private async decide(watch: WatchModel, lineupStart: Date, leadDays: number, outlook: SkyOutlook): Promise<{ decision: WatchOutlookDecision; earlier: EarlierMail | null }> {
+    const maxCloudPct = watch.maxCloudPct ?? null;
+    // Only the on-the-day e-mail compares with an earlier one ("still clear?").
+    const earlier = leadDays === 0 ? await this.earlierMail(watch.id, lineupStart, leadDays) : null;
+    return { decision: watchOutlookDecision({ maxCloudPct, outlook, leadDays, previous: earlier?.outlook ?? null }), earlier };
+  }
+
+  /** The lineups of `due` not yet recorded for the watch (same lead, start within SAME_LINEUP_MINUTES). */
+  private async unrecorded<T extends { lineup: Lineup; lead: number }>(watchId: string, due: readonly T[]): Promise<T[]> {
+    if (due.length === 0) return [];
+    const from = new Date(Math.min(...due.map((d) => Date.parse(d.lineup.start))) - SAME_LINEUP_MINUTES * 60_000 - 60_000);
+    const rows = await this.sequelize.query<{ lineup_start: Date; lead_days: number }>(
+      'SELECT lineup_start, lead_days FROM watch_deliveries WHERE watch_id = :watchId AND lineup_start >= :from',
+      { type: QueryTypes.SELECT, replacements: { watchId, from } },
+    );
+    return due.filter((d) => {
+      const start = deliveryLineupStart(d.lineup).getTime();
+      return !rows.some((r) => r.lead_days === d.lead && Math.abs(new Date(r.lineup_start).getTime() - start) <= SAME_LINEUP_MINUTES * 60_000);
+    });
+  }
 
   /**
    * Records every e-mail due at `now` for the active watches and returns the deliveries to send:
@@ -113,6 +203,7 @@ export class WatchDeliveryService {
     const toSend: string[] = [];
     let created = 0;
     let failedWatches = 0;
+    let heldBackByCloud = 0;
     for (const watch of watches) {
       const owner = (watch as WatchModel & { owner?: UserModel }).owner;
       if (!owner || owner.disabled || !watch.sightline) continue;
@@ -126,9 +217,22 @@ export class WatchDeliveryService {
         console.error(`Watch ${watch.id}: the lineup search failed:`, errorText(error));
         continue;
       }
-      for (const lineup of found.lineups) {
-        const lead = currentLead(new Date(lineup.start), watch.leadDays, found.timezone, now);
-        if (lead === undefined) continue;
+      let due = found.lineups
+        .map((lineup) => ({ lineup, lead: currentLead(new Date(lineup.start), watch.leadDays, found.timezone, now) }))
+        .filter((d): d is { lineup: Lineup; lead: number } => d.lead !== undefined);
+      if (watch.maxCloudPct !== null && watch.maxCloudPct !== undefined) {
+        // A cloud limit: judge the e-mails not yet recorded on one outlook request for the watch.
+        due = await this.unrecorded(watch.id, due);
+        const outlooks = await this.outlooksOf(watch, due.map((d) => ({ start: new Date(d.lineup.start), end: new Date(d.lineup.end) })));
+        const kept: typeof due = [];
+        for (const [i, d] of due.entries()) {
+          const { decision } = await this.decide(watch, deliveryLineupStart(d.lineup), d.lead, outlooks[i]!);
+          if (decision.send) kept.push(d);
+          else heldBackByCloud += 1;
+        }
+        due = kept;
+      }
+      for (const { lineup, lead } of due) {
         const id = await this.record(watch, lineup, lead, { lineup, timezone: found.timezone, target: { ...found.target, name: found.targetName } });
         if (id) {
           created += 1;
@@ -145,7 +249,7 @@ export class WatchDeliveryService {
       { type: QueryTypes.SELECT, replacements: { now, orphanSecs: this.settings.orphanAfterMs / 1000, leaseSecs: this.settings.claimLeaseMs / 1000 } },
     );
     for (const { id } of orphans) if (!toSend.includes(id)) toSend.push(id);
-    return { toSend, created, failedWatches };
+    return { toSend, created, failedWatches, heldBackByCloud };
   }
 
   /**
@@ -196,17 +300,32 @@ export class WatchDeliveryService {
   }
 
   /** Ends a claim with the given change, only while the claim is still ours; true when it was. */
-  private async finish(deliveryId: string, token: string, change: { status: 'sent' | 'pending' | 'failed' | 'skipped'; lastError?: string | null; recipient?: string }): Promise<boolean> {
+  private async finish(deliveryId: string, token: string, change: { status: 'sent' | 'pending' | 'failed' | 'skipped'; lastError?: string | null; recipient?: string; outlook?: SkyOutlook }): Promise<boolean> {
+    // The outlook is kept without its hours: a later e-mail compares only the summary.
+    const outlook = change.outlook ? JSON.stringify(change.outlook.status === 'forecast' ? { ...change.outlook, hours: [] } : change.outlook) : null;
     const rows = await this.sequelize.query<{ id: string }>(
       `UPDATE watch_deliveries
        SET status = :status, last_error = :lastError, claim_token = NULL, updated_at = now(),
            sent_at = CASE WHEN :status = 'sent' THEN now() ELSE sent_at END,
-           recipient = COALESCE(:recipient, recipient)
+           recipient = COALESCE(:recipient, recipient),
+           outlook = COALESCE(CAST(:outlook AS jsonb), outlook)
        WHERE id = :id AND claim_token = :token AND status = 'sending'
        RETURNING id`,
-      { type: QueryTypes.SELECT, replacements: { id: deliveryId, token, status: change.status, lastError: change.lastError ?? null, recipient: change.recipient ?? null } },
+      { type: QueryTypes.SELECT, replacements: { id: deliveryId, token, status: change.status, lastError: change.lastError ?? null, recipient: change.recipient ?? null, outlook } },
     );
     return rows.length === 1;
+  }
+
+  /**
+   * Deletes a claimed row whose e-mail is no longer to go (the sky clouded over past the watch's
+   * limit since the scan). Nothing was sent, so nothing can go twice; a later scan may record the
+   * e-mail again if the sky clears while its lead time is current.
+   */
+  private async withdraw(deliveryId: string, token: string): Promise<void> {
+    await this.sequelize.query(
+      `DELETE FROM watch_deliveries WHERE id = :id AND claim_token = :token AND status = 'sending'`,
+      { replacements: { id: deliveryId, token } },
+    );
   }
 
   /**
@@ -233,7 +352,16 @@ export class WatchDeliveryService {
       return 'skipped';
     }
 
-    const mail = await this.compose(delivery, watch!, owner!, now);
+    const { lineup } = delivery.snapshot;
+    const [outlook] = await this.outlooksOf(watch!, [{ start: new Date(lineup.start), end: new Date(lineup.end) }]);
+    const { decision, earlier } = await this.decide(watch!, delivery.lineupStart, delivery.leadDays, outlook!);
+    if (!decision.send) {
+      await this.withdraw(deliveryId, token);
+      return 'skipped';
+    }
+    const mail = await this.compose(delivery, watch!, owner!, now, {
+      outlook: outlook!, maxCloudPct: watch!.maxCloudPct ?? null, decision, earlier: earlier?.outlook ?? null,
+    });
     try {
       await this.mailer.send(mail);
     } catch (error) {
@@ -247,12 +375,12 @@ export class WatchDeliveryService {
       await this.finish(deliveryId, token, { status: 'pending', lastError });
       throw new RetryableSendError(`Delivery ${deliveryId}, attempt ${delivery.attempts}: ${lastError}`);
     }
-    const ours = await this.finish(deliveryId, token, { status: 'sent', lastError: null, recipient: owner!.email });
+    const ours = await this.finish(deliveryId, token, { status: 'sent', lastError: null, recipient: owner!.email, outlook: outlook! });
     if (!ours) console.warn(`Delivery ${deliveryId}: sent, but its claim had passed to another sender (the e-mail may go twice, with the same Message-ID)`);
     return 'sent';
   }
 
-  private async compose(delivery: WatchDeliveryModel, watch: WatchModel, owner: UserModel, now: Date) {
+  private async compose(delivery: WatchDeliveryModel, watch: WatchModel, owner: UserModel, now: Date, outlook: WatchEmailOutlook) {
     const sightline = watch.sightline!;
     const { lineup, timezone, target } = delivery.snapshot;
     const notes = await FieldNoteModel.findAll({ where: { sightlineId: sightline.id }, order: [['createdAt', 'ASC']] });
@@ -278,6 +406,7 @@ export class WatchDeliveryService {
       hasTideRule: Boolean(sightline.tideRule),
       cautions,
       links,
+      outlook,
     });
     const ics = watchedLineupsToIcs(`Gnomon: ${sightline.name}`, [{
       watchId: watch.id,

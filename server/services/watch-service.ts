@@ -75,6 +75,7 @@ export class WatchService {
       weekdays: input.weekdays,
       leadDays: input.leadDays,
       paused: input.paused,
+      maxCloudPct: input.maxCloudPct,
     });
     return this.get(user, created.id);
   }
