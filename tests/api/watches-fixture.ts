@@ -1,6 +1,7 @@
 /**
  * Shared set-up of the watch tests: the real app with a fake clock, the local SMTP fake on a free
- * port, and a scheduler with tight retry delays, so weeks of watches run in seconds.
+ * port, and a scheduler with tight retry delays, so weeks of watches run in seconds. Tests of the
+ * sky outlook add the local forecast fake's address (FORECAST_BASE_URL) through `env`.
  */
 import type { Express } from 'express';
 import type request from 'supertest';
@@ -35,9 +36,9 @@ export interface WatchApp {
   close(): Promise<void>;
 }
 
-/** One app copy on the test database, its mail going to the fake. */
-export function createWatchApp(db: Database, clock: FakeClock, fake: SmtpFake): WatchApp {
-  const config = loadConfig({ NODE_ENV: 'test', BCRYPT_ROUNDS: '4', SMTP_URL: fake.url, APP_URL, WATCH_SCAN_INTERVAL_SECONDS: '3600' });
+/** One app copy on the test database, its mail going to the fake; `env` adds settings (e.g. FORECAST_BASE_URL). */
+export function createWatchApp(db: Database, clock: FakeClock, fake: SmtpFake, env: Record<string, string> = {}): WatchApp {
+  const config = loadConfig({ NODE_ENV: 'test', BCRYPT_ROUNDS: '4', SMTP_URL: fake.url, APP_URL, WATCH_SCAN_INTERVAL_SECONDS: '3600', ...env });
   const app = createApp({
     config,
     sequelize: db.sequelize,
