@@ -139,6 +139,8 @@ export const shotPlanLineupSchema = z.object({
   peak: instantSchema('the lineup peak'),
   end: instantSchema('the lineup end'),
 }, { error: 'Give the lineup: start, peak and end' }).superRefine((l, ctx) => {
+  // Instants that failed their own check are reported there.
+  if (!(l.start instanceof Date) || !(l.peak instanceof Date) || !(l.end instanceof Date)) return;
   const s = l.start.getTime();
   const p = l.peak.getTime();
   const e = l.end.getTime();
