@@ -13,16 +13,25 @@ export class UserService {
     return user && !user.disabled ? user : null;
   }
 
-  /** Changes role or disabled state; an admin cannot demote or disable their own account. */
+  /**
+   * Changes role or disabled state; an admin cannot demote or disable their own account. The admin
+   * rows are locked first, so two admins demoting each other at once cannot leave none: the second
+   * finds that they are no longer an admin.
+   */
   async update(actor: UserModel, id: string, change: UserUpdateRequest): Promise<UserModel> {
-    const user = await UserModel.findByPk(id);
-    if (!user) throw AppError.notFound('No such account');
-    if (user.id === actor.id && (change.role === 'member' || change.disabled === true)) {
+    if (id === actor.id && (change.role === 'member' || change.disabled === true)) {
       throw new AppError('validation', 'You cannot demote or disable your own account', { role: 'Ask another administrator' });
     }
-    if (change.role !== undefined) user.role = change.role;
-    if (change.disabled !== undefined) user.disabled = change.disabled;
-    await user.save();
-    return user;
+    return UserModel.sequelize!.transaction(async (transaction) => {
+      const admins = await UserModel.findAll({ where: { role: 'admin' }, transaction, lock: transaction.LOCK.UPDATE });
+      const self = admins.find((a) => a.id === actor.id);
+      if (!self || self.disabled) throw new AppError('forbidden', 'Only an active administrator can change accounts');
+      const user = await UserModel.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!user) throw AppError.notFound('No such account');
+      if (change.role !== undefined) user.role = change.role;
+      if (change.disabled !== undefined) user.disabled = change.disabled;
+      await user.save({ transaction });
+      return user;
+    });
   }
 }

@@ -152,6 +152,21 @@ describe('roles', () => {
     expectErrorShape(self.body, 'validation');
   });
 
+  it('two admins demoting each other at the same moment leave one admin, never none', async () => {
+    const a = await createUser('admin', 'Admin A');
+    const b = await createUser('admin', 'Admin B');
+    const [agentA, agentB] = [await signedInAgent(ctx.app, a), await signedInAgent(ctx.app, b)];
+    const [byA, byB] = await Promise.all([
+      agentA.patch(`/api/users/${b.id}`).send({ role: 'member' }),
+      agentB.patch(`/api/users/${a.id}`).send({ role: 'member' }),
+    ]);
+    // One wins; the other finds it is no longer an admin (the session's role is read per request,
+    // so it may also be refused before the service: 403 either way).
+    expect([byA.status, byB.status].sort()).toEqual([200, 403]);
+    await Promise.all([a.reload(), b.reload()]);
+    expect([a.role, b.role].filter((r) => r === 'admin')).toHaveLength(1);
+  });
+
   it('answers 400 for a bad role value and 404 for an unknown account', async () => {
     const agent = await signedInAgent(ctx.app, await createUser('admin'));
     const bad = await agent.patch(`/api/users/${(await createUser()).id}`).send({ role: 'overlord' });

@@ -86,8 +86,7 @@ describe('a crew in the browser', () => {
     await page.locator('input[name="name"]').fill('Nell Newcomer');
     await page.locator('input[name="password"]').fill('a-long-invented-password');
     await page.getByRole('button', { name: 'Create account' }).click();
-    await page.getByTestId('sightline-page').waitFor({ timeout: 20_000 });
-    expect(await page.getByTestId('sightline-name').textContent()).toContain(NAME);
+    await page.getByTestId('sightline-name').getByText(NAME).waitFor({ timeout: 20_000 });
 
     // A viewer sees the plan but not the controls that change it.
     await page.goto(`/sightlines/${sightlineId}?tab=tides`);
