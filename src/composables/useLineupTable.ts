@@ -1,7 +1,9 @@
 import { computed, h, ref, type Ref } from 'vue';
 import type { DataTableColumns } from 'naive-ui';
 import type { Lineup } from '../../shared/schemas/lineup';
+import type { SkyOutlook } from '../../shared/schemas/outlook';
 import LineupScoreBar from '@/components/lineup/LineupScoreBar.vue';
+import OutlookBadge from '@/components/outlook/OutlookBadge.vue';
 import TideStatusTag from '@/components/tide/TideStatusTag.vue';
 import { clockOf, durationText, nightLabel, nightOf, zoneOf } from './useLineupTime';
 
@@ -13,8 +15,22 @@ export interface LineupRow extends Lineup {
 
 const TIDE_ORDER: Record<string, number> = { reachable: 0, unknown: 1, 'cut-off': 2 };
 
-/** Columns, rows and the cut-off filter of the lineup results table. */
-export function useLineupTable(lineups: Ref<readonly Lineup[]>, timeZone: Ref<string>, onOpen: (row: LineupRow) => void) {
+/** Sort key of a sky outlook: mean cloud for a forecast, then the rest after every forecast. */
+function outlookOrder(o: SkyOutlook | null): number {
+  if (o?.status === 'forecast') return o.meanCloudPct;
+  return o?.status === 'no-forecast-yet' ? 1000 : 2000;
+}
+
+/**
+ * Columns, rows and the cut-off filter of the lineup results table. With `outlookOf`, a "Sky"
+ * column shows each lineup's sky outlook badge (the numbers on hover).
+ */
+export function useLineupTable(
+  lineups: Ref<readonly Lineup[]>,
+  timeZone: Ref<string>,
+  onOpen: (row: LineupRow) => void,
+  outlookOf?: (row: LineupRow) => SkyOutlook | null,
+) {
   const hideCutOff = ref(false);
 
   const allRows = computed<LineupRow[]>(() => lineups.value.map((l) => ({ ...l, night: nightOf(l.start, timeZone.value) })));
@@ -55,6 +71,11 @@ export function useLineupTable(lineups: Ref<readonly Lineup[]>, timeZone: Ref<st
         sorter: (a, b) => a.score - b.score,
         render: (row) => h(LineupScoreBar, { score: row.score }),
       },
+      ...(outlookOf ? [{
+        title: 'Sky', key: 'outlook', minWidth: 130,
+        sorter: (a: LineupRow, b: LineupRow) => outlookOrder(outlookOf(a)) - outlookOrder(outlookOf(b)),
+        render: (row: LineupRow) => h(OutlookBadge, { outlook: outlookOf(row), timeZone: tz }),
+      }] : []),
       {
         title: 'Tide', key: 'tideStatus', minWidth: 150,
         sorter: (a, b) => (TIDE_ORDER[a.tideStatus ?? ''] ?? 3) - (TIDE_ORDER[b.tideStatus ?? ''] ?? 3),

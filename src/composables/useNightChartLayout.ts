@@ -2,8 +2,10 @@ import { computed, type Ref } from 'vue';
 import { linearScale, piecewiseLinearScale, seriesPath, type NightChartSeries, type SkyBrightness } from '../../shared/chart';
 import type { Frame } from '../../shared/schemas/geometry';
 import type { Lineup } from '../../shared/schemas/lineup';
+import type { SkyOutlook } from '../../shared/schemas/outlook';
+import { cloudBars } from '../../shared/outlook';
 import type { TideStretch } from './useNightChart';
-import { clockOf } from './useLineupTime';
+import { clockOf, zoneOf } from './useLineupTime';
 
 /** Altitudes shown on the time panel, degrees: down to -20 for the twilight band. */
 export const TIME_PANEL_ALT_DOMAIN_DEG: [number, number] = [-20, 90];
@@ -32,6 +34,23 @@ export interface TimePanelLayout {
   yTicks: Array<{ y: number; label: string; limit: boolean }>;
   lineups: Array<Rect & { label: string; key: string; tide: Lineup['tideStatus'] }>;
   tide: Array<Rect & { status: TideStretch['status'] }> | null;
+  /**
+   * The sky outlook strip under the plot: per lineup with a forecast, a track over its window and
+   * one bar per forecast hour, as tall as that hour's total cloud cover; null without forecasts.
+   */
+  cloud: { y: number; height: number; tracks: Rect[]; bars: Array<Rect & { cloudPct: number; title: string }> } | null;
+}
+
+/** Height of the cloud strip, px: 100 % cloud fills it. */
+const CLOUD_STRIP_PX = 16;
+
+/** The title of a cloud bar: the hour in the site zone and its cloud, layers where given. */
+function barTitle(bar: ReturnType<typeof cloudBars>[number], timeZone: string): string {
+  const layers = [['low', bar.lowPct], ['mid', bar.midPct], ['high', bar.highPct]]
+    .filter((l): l is [string, number] => l[1] !== null)
+    .map(([name, v]) => `${name} ${Math.round(v)} %`);
+  const rain = bar.precipitationProbabilityPct === null ? '' : `, rain chance ${Math.round(bar.precipitationProbabilityPct)} %`;
+  return `${clockOf(bar.time, timeZone)} ${zoneOf(bar.time, timeZone)}: cloud ${Math.round(bar.cloudPct)} %${layers.length ? ` (${layers.join(', ')})` : ''}${rain}`;
 }
 
 /**
@@ -44,6 +63,8 @@ export function useNightChartLayout(
   frame: Ref<Frame | null>,
   nightLineups: Ref<readonly Lineup[]>,
   tide: Ref<TideStretch[] | null>,
+  /** Sky outlooks by lineup start (optional): the cloud strip is drawn for those with a forecast. */
+  outlooks?: Ref<ReadonlyMap<string, SkyOutlook>>,
 ) {
   return computed<TimePanelLayout | null>(() => {
     const s = series.value;
@@ -52,7 +73,11 @@ export function useNightChartLayout(
     const w = width.value;
     const narrow = w < 560;
     const tideH = tide.value ? 12 : 0;
-    const pad = { left: 38, right: 10, top: 12, bottom: 26 + (tideH ? tideH + 8 : 0) };
+    const forecasts = nightLineups.value
+      .map((l) => outlooks?.value.get(l.start))
+      .filter((o): o is Extract<SkyOutlook, { status: 'forecast' }> => o?.status === 'forecast');
+    const cloudH = forecasts.length ? CLOUD_STRIP_PX : 0;
+    const pad = { left: 38, right: 10, top: 12, bottom: 26 + (tideH ? tideH + 8 : 0) + (cloudH ? cloudH + 8 : 0) };
     const height = narrow ? 300 : 360;
     const plot: Rect = { x: pad.left, y: pad.top, width: w - pad.left - pad.right, height: height - pad.top - pad.bottom };
     const x = linearScale([s.span.startMs, s.span.endMs], [plot.x, plot.x + plot.width]);
@@ -73,6 +98,22 @@ export function useNightChartLayout(
     };
     const visibleAlt = (alt: number) => alt >= TIME_PANEL_ALT_DOMAIN_DEG[0] - 5;
     const tideTop = plot.y + plot.height + 22;
+    const cloudTop = tideH ? tideTop + tideH + 8 : tideTop;
+    let cloud: TimePanelLayout['cloud'] = null;
+    if (cloudH) {
+      // A forecast that cannot be drawn leaves the strip out, never the chart.
+      try {
+        const tracks = forecasts.map((o) => xRect(Date.parse(o.start), Date.parse(o.end), cloudTop, cloudTop + cloudH));
+        const bars = forecasts.flatMap((o) => cloudBars(o)).map((b) => {
+          const r = xRect(b.startMs, b.endMs, cloudTop, cloudTop + cloudH);
+          const barH = Math.max((cloudH * Math.min(Math.max(b.cloudPct, 0), 100)) / 100, 0);
+          return { x: r.x, width: r.width, y: cloudTop + cloudH - barH, height: barH, cloudPct: b.cloudPct, title: barTitle(b, s.timeZone) };
+        });
+        cloud = { y: cloudTop, height: cloudH, tracks, bars };
+      } catch {
+        cloud = null;
+      }
+    }
 
     return {
       width: w,
@@ -99,6 +140,7 @@ export function useNightChartLayout(
         tide: l.tideStatus,
       })),
       tide: tide.value ? tide.value.map((t) => ({ ...xRect(t.startMs, t.endMs, tideTop, tideTop + tideH), status: t.status })) : null,
+      cloud,
     };
   });
 }
