@@ -24,13 +24,16 @@ import { leadDayLabel } from './useWatchLabels';
 /** The fields of the watch form that can carry a message. */
 export type WatchFormField =
   | 'target' | 'customName' | 'customRa' | 'customDec'
-  | 'minScore' | 'minDurationMin' | 'reachableOnly' | 'weekdays' | 'leadDays' | 'paused';
+  | 'minScore' | 'minDurationMin' | 'reachableOnly' | 'weekdays' | 'leadDays' | 'paused' | 'maxCloudPct';
 
 /** The target a new watch starts with when the sightline's own is not in the catalogue. */
 const FALLBACK_TARGET_ID = 'galactic-centre';
 
 /** The form shows the score as a percentage, so its message says so (the API's says 0 to 1). */
 const MIN_SCORE_MESSAGE = 'Lowest score is 0 to 100 %';
+
+/** The cloud limit a form offers when it is switched on, % (mean total cloud over the lineup window). */
+export const DEFAULT_MAX_CLOUD_PCT = 30;
 
 /** Mon..Sun checkboxes, ISO weekday numbers as values. */
 export const WEEKDAY_OPTIONS = WEEKDAYS.map((d) => ({ label: weekdayNames[d - 1], value: d }));
@@ -43,7 +46,7 @@ export function watchFieldOfPath(path: string): WatchFormField | null {
   if (path === 'target.decDeg') return 'customDec';
   const head = path.split('.')[0];
   switch (head) {
-    case 'minScore': case 'minDurationMin': case 'reachableOnly': case 'weekdays': case 'leadDays': case 'paused':
+    case 'minScore': case 'minDurationMin': case 'reachableOnly': case 'weekdays': case 'leadDays': case 'paused': case 'maxCloudPct':
       return head;
     default:
       return null;
@@ -52,8 +55,8 @@ export function watchFieldOfPath(path: string): WatchFormField | null {
 
 /**
  * The watch form, for a new watch and for editing one: target (catalogue or RA/Dec), minimum
- * score (as a percentage), minimum duration, reachable-only, nights of the week, lead times and
- * paused. Checks with the shared schemas and places their messages, and the server's, beside the
+ * score (as a percentage), minimum duration, reachable-only, nights of the week, lead times,
+ * paused, and a cloud limit (switched on or off; a number 0..100 % when on). Checks with the shared schemas and places their messages, and the server's, beside the
  * fields.
  */
 export function useWatchForm() {
@@ -70,6 +73,10 @@ export function useWatchForm() {
     weekdays: [...WEEKDAYS] as number[],
     leadDays: [...DEFAULT_LEAD_DAYS] as number[],
     paused: false,
+    /** Whether the reminders wait for a clear enough sky outlook. */
+    cloudLimitOn: false,
+    /** The cloud limit, 0..100 % (used when cloudLimitOn). */
+    maxCloudPct: DEFAULT_MAX_CLOUD_PCT as number | null,
   });
   const errors = useFieldErrors<WatchFormField>();
 
@@ -98,6 +105,8 @@ export function useWatchForm() {
       weekdays: [...WEEKDAYS],
       leadDays: [...DEFAULT_LEAD_DAYS],
       paused: false,
+      cloudLimitOn: false,
+      maxCloudPct: DEFAULT_MAX_CLOUD_PCT,
     });
   }
 
@@ -117,6 +126,8 @@ export function useWatchForm() {
       weekdays: [...watch.weekdays],
       leadDays: [...watch.leadDays],
       paused: watch.paused,
+      cloudLimitOn: watch.maxCloudPct !== null,
+      maxCloudPct: watch.maxCloudPct ?? DEFAULT_MAX_CLOUD_PCT,
     });
   }
 
@@ -142,7 +153,7 @@ export function useWatchForm() {
     return parsed.success && ra !== null && dec !== null ? parsed.data : null;
   }
 
-  /** The conditions as the API has them (score as a fraction). NaN marks an empty number box. */
+  /** The conditions as the API has them (score as a fraction; no cloud limit is null). NaN marks an empty number box. */
   function conditions() {
     return {
       minScore: form.minScorePercent === null ? Number.NaN : form.minScorePercent / 100,
@@ -151,6 +162,7 @@ export function useWatchForm() {
       weekdays: [...form.weekdays],
       leadDays: [...form.leadDays],
       paused: form.paused,
+      maxCloudPct: form.cloudLimitOn ? (form.maxCloudPct ?? Number.NaN) : null,
     };
   }
 

@@ -25,9 +25,10 @@ export function percentText(score: number): string {
 }
 
 /** The conditions of a watch as short parts, for a table cell. */
-export function conditionParts(w: Pick<Watch, 'minScore' | 'minDurationMin' | 'reachableOnly' | 'weekdays'>): string[] {
+export function conditionParts(w: Pick<Watch, 'minScore' | 'minDurationMin' | 'reachableOnly' | 'weekdays'> & Partial<Pick<Watch, 'maxCloudPct'>>): string[] {
   const parts = [`score ≥ ${percentText(w.minScore)}`, `≥ ${durationText(w.minDurationMin)}`];
   if (w.reachableOnly) parts.push('reachable by the tide only');
+  if (w.maxCloudPct !== null && w.maxCloudPct !== undefined) parts.push(`cloud ≤ ${w.maxCloudPct} %`);
   parts.push(weekdaysText(w.weekdays));
   return parts;
 }
