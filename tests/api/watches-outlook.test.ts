@@ -8,7 +8,7 @@
  * scale (shared/outlook/summary.ts: 'clear' at most 25 % mean cloud, 'cloudy' from 62.5 %).
  */
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type request from 'supertest';
+import request from 'supertest';
 import { DateTime } from 'luxon';
 import type { ParsedMail } from 'mailparser';
 import { QueryTypes } from 'sequelize';
@@ -56,7 +56,7 @@ beforeAll(async () => {
   ctx = await createTestContext();
   smtp = new SmtpFake({ port: 0 });
   await smtp.start();
-  forecastFake = await startFakeForecastServer({ now: () => clock.now() });
+  forecastFake = await startFakeForecastServer({ now: () => clock.now(), httpControls: true });
 });
 afterEach(async () => {
   await Promise.all(apps.splice(0).map((a) => a.close()));
@@ -245,7 +245,7 @@ describe('the cloud limit of a watch', () => {
 });
 
 describe('"still clear?" on the day', () => {
-  it('sends the on-the-day e-mail despite the limit when the sky clouded over since the earlier e-mail, and says so; without an earlier forecast it holds it back', async () => {
+  it('sends the on-the-day e-mail despite the limit when the sky clouded over since the earlier e-mail, and says so; a watch with no earlier e-mail for the lineup holds it back', async () => {
     const { user, sightline, L } = await scenario();
     const threeDaysBefore = new Date(Date.parse(L.start) - 3 * DAY_MS);
     clock = new FakeClock(threeDaysBefore);
@@ -304,5 +304,32 @@ describe('the cloud limit in the API and the database', () => {
 
     // The CHECK constraint refuses what the API would (PostgreSQL: a failed CHECK aborts the UPDATE).
     await expect(ctx.db.sequelize.query('UPDATE watches SET max_cloud_pct = 150 WHERE id = :id', { replacements: { id } })).rejects.toThrow(/watches_max_cloud_pct/);
+  });
+});
+
+describe('the forecast fake\'s fixed sky', () => {
+  // The answer's shape is the service's documented one (https://open-meteo.com/en/docs); the fixed
+  // values replace the invented ones at every hour, the others stay as they were.
+  const query = { latitude: -35, longitude: 149.4, hourly: 'cloud_cover,relative_humidity_2m', forecast_days: 1, timezone: 'GMT' };
+
+  it('gives every hour the set values, over HTTP too, and refuses values out of range', async () => {
+    const invented = (await request(forecastFake.url).get('/v1/forecast').query(query)).body.hourly;
+    expect(new Set(invented.cloud_cover).size).toBeGreaterThan(1);
+
+    forecastFake.setSky({ cloud_cover: 37 });
+    const fixed = (await request(forecastFake.url).get('/v1/forecast').query(query)).body.hourly;
+    expect(fixed.cloud_cover).toEqual(Array(24).fill(37));
+    expect(fixed.relative_humidity_2m).toEqual(invented.relative_humidity_2m);
+
+    expect((await request(forecastFake.url).post('/__fake/sky').query({ cloud_cover: 64 })).status).toBe(200);
+    expect((await request(forecastFake.url).get('/v1/forecast').query(query)).body.hourly.cloud_cover).toEqual(Array(24).fill(64));
+    expect((await request(forecastFake.url).get('/__fake/state')).body.sky).toEqual({ cloud_cover: 64 });
+    const bad = await request(forecastFake.url).post('/__fake/sky').query({ cloud_cover: 140 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error).toBe(true);
+    expect(() => forecastFake.setSky({ sky_colour: 3 } as FakeSky)).toThrow(RangeError);
+
+    expect((await request(forecastFake.url).post('/__fake/sky')).status).toBe(200);
+    expect((await request(forecastFake.url).get('/v1/forecast').query(query)).body.hourly.cloud_cover).toEqual(invented.cloud_cover);
   });
 });
