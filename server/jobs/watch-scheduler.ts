@@ -151,7 +151,7 @@ export class WatchScheduler {
       boss.notifyWorker(this.workerIds[SEND_QUEUE]!);
     }
     if (this.options.log && (result.created || result.failedWatches)) {
-      console.log(`Watch scan: ${result.created} new e-mail(s), ${result.toSend.length} to send, ${result.failedWatches} watch(es) failed`);
+      console.log(`Watch scan: ${result.created} new e-mail(s), ${result.toSend.length} to send, ${result.failedWatches} watch(es) failed, ${result.heldBackByCloud} held back by a cloud limit`);
     }
   }
 
