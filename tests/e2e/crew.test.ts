@@ -56,6 +56,13 @@ describe('a crew in the browser', () => {
     await page.getByTestId('outing-night').click();
     await page.locator('.n-base-select-option').first().click();
     expect(await page.getByTestId('outing-meeting-time').locator('input').inputValue()).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/);
+    // The meeting point starts at the vantage; a click on the map moves the pin there.
+    expect(await page.getByTestId('outing-lat').locator('input').inputValue()).toBe(VANTAGE.lat.toFixed(5));
+    const map = page.getByTestId('outing-map');
+    await map.scrollIntoViewIfNeeded();
+    const box = (await map.boundingBox())!;
+    await page.mouse.click(box.x + box.width * 0.3, box.y + box.height * 0.3);
+    await expect.poll(() => page.getByTestId('outing-lat').locator('input').inputValue()).not.toBe(VANTAGE.lat.toFixed(5));
     await page.getByTestId('outing-gear').locator('textarea').fill('Head torch with a red mode, warm layers');
     await page.getByTestId('outing-plan').click();
     await page.getByTestId('outing-page').waitFor();
@@ -106,6 +113,7 @@ describe('a crew in the browser', () => {
     await page.getByTestId('outing-page').waitFor();
     await page.getByTestId('night-vision-toggle').click();
     expect(await page.getByTestId('outing-gear').textContent()).toContain('red mode');
+    await page.locator('[data-testid="outing-map"] .gn-pin-meeting').waitFor();
     await page.getByTestId('outing-answer-going').click();
     await page.locator('[data-testid="outing-person"][data-answer="going"]').waitFor();
     expect(await page.getByTestId('outing-counts').textContent()).toContain('1 going');

@@ -62,3 +62,17 @@ export function spotIcon(label: string, exact: boolean): Icon {
 export function labelIcon(className: string, label: string): Icon {
   return markerIcon({ className, html: `<span>${escapeHtml(label)}</span>`, iconSize: [0, 0], iconAnchor: [0, 0] });
 }
+
+const MEETING_SVG = `
+<svg viewBox="0 0 30 30" width="30" height="30" aria-hidden="true" focusable="false">
+  <circle class="gn-pin-body" cx="15" cy="15" r="12" />
+  <path class="gn-pin-mark" d="M10 11 a3 3 0 1 0 0.01 0 M20 11 a3 3 0 1 0 0.01 0 M6 23 q4 -6 8 0 M16 23 q4 -6 8 0" />
+</svg>`;
+
+/** The meeting point of an outing: a round pin with two figures. */
+export const meetingIcon: Icon = markerIcon({
+  className: 'gn-pin gn-pin-meeting',
+  html: MEETING_SVG,
+  iconSize: [30, 30],
+  iconAnchor: [15, 15],
+});
