@@ -1,4 +1,5 @@
-import { createHmac, createSecretKey, type KeyObject } from 'node:crypto';
+import type { KeyObject } from 'node:crypto';
+import { purposeKey } from './purpose-key';
 import jwt from 'jsonwebtoken';
 
 /** Purpose of the key: no other token of the app can pass as an invite token, nor the reverse. */
@@ -23,7 +24,7 @@ export class InviteTokens {
   private readonly key: KeyObject;
 
   constructor(jwtSecret: string) {
-    this.key = createSecretKey(createHmac('sha256', jwtSecret).update(PURPOSE).digest());
+    this.key = purposeKey(jwtSecret, PURPOSE);
   }
 
   /** A token for the invite, expiring with it. */

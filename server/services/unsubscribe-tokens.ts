@@ -1,4 +1,5 @@
-import { createHmac, createSecretKey, type KeyObject } from 'node:crypto';
+import type { KeyObject } from 'node:crypto';
+import { purposeKey } from './purpose-key';
 import jwt from 'jsonwebtoken';
 
 /** Purpose of the key: a session token can never pass as an unsubscribe token, nor the reverse. */
@@ -30,7 +31,7 @@ export class UnsubscribeTokens {
   private readonly key: KeyObject;
 
   constructor(jwtSecret: string) {
-    this.key = createSecretKey(createHmac('sha256', jwtSecret).update(PURPOSE).digest());
+    this.key = purposeKey(jwtSecret, PURPOSE);
   }
 
   sign(claims: UnsubscribeClaims): string {
