@@ -57,17 +57,19 @@ const LANE_BOTTOM = ['', '', '0px', '15px'];
 /**
  * The night's timeline: the bar (blocks as boxes, late ones red, events as ticks) as an SVG that
  * stretches to the width, with the labels and hours as HTML placed by percent so text never
- * stretches; labels spread over four lanes so they do not overlap.
+ * stretches; labels spread over four lanes so they do not overlap (one with no room is left out:
+ * the times table lists every event).
  */
 export function timelineHtml(model: ShotCardModel): string {
   const labels = model.barEventLabels;
-  const bar = timelineBarLayout(model.bar.events, model.bar.blocks, BAR_UNITS, { labelWidths: labels.map((l) => l.length * UNITS_PER_CHAR), lanes: 4, labelGap: 10 });
+  const bar = timelineBarLayout(model.bar.events, model.bar.blocks, BAR_UNITS, { labelWidths: labels.map((l) => l.length * UNITS_PER_CHAR), lanes: 4, labelGap: 10, dropOverflow: true });
   const pct = (x: number) => `${((x / BAR_UNITS) * 100).toFixed(2)}%`;
   const blocks = bar.blocks.map((b) =>
     `<rect class="block block-${e(b.kind)}${b.late ? ' late' : ''}" x="${f1(b.x)}" y="2" width="${f1(b.w)}" height="22"><title>${e(b.label)}</title></rect>`,
   ).join('');
   const ticks = bar.events.map((ev) => `<line class="event event-${e(ev.kind)}" x1="${f1(ev.x)}" y1="0" x2="${f1(ev.x)}" y2="26" vector-effect="non-scaling-stroke"/>`).join('');
   const eventLabels = bar.events.map((ev, i) => {
+    if (ev.lane < 0) return '';
     const deadline = ev.kind === 'tide-cut-off' || ev.kind === 'moonrise' || ev.kind === 'astronomical-dawn' || ev.kind === 'lineup-end';
     const vertical = ev.lane < 2 ? `bottom:${LANE_TOP[ev.lane]}` : `top:${LANE_BOTTOM[ev.lane]}`;
     return `<span class="bar-label${deadline ? ' deadline' : ''}" style="left:${pct(ev.labelX)};${vertical}">${e(labels[i] ?? ev.label)}</span>`;
@@ -76,7 +78,7 @@ export function timelineHtml(model: ShotCardModel): string {
     const x = ((h.atMs - bar.startMs) / (bar.endMs - bar.startMs)) * BAR_UNITS;
     return `<span class="hour" style="left:${pct(x)}">${e(h.label)}</span>`;
   }).join('');
-  const above = eventLabels.filter((_, i) => (bar.events[i]?.lane ?? 0) < 2).join('');
+  const above = eventLabels.filter((_, i) => (bar.events[i]?.lane ?? -1) >= 0 && (bar.events[i]?.lane ?? 0) < 2).join('');
   const below = eventLabels.filter((_, i) => (bar.events[i]?.lane ?? 0) >= 2).join('');
   return `<div class="timeline" role="img" aria-label="The night's timeline">
 <div class="lanes above">${above}</div>

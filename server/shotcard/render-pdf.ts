@@ -179,7 +179,7 @@ function drawBar(w: CardWriter, model: ShotCardModel, x: number, y: number, widt
   const labels = model.barEventLabels;
   doc.font('inter-latin-400').fontSize(BAR_LABEL_SIZE);
   const widths = labels.map((l) => doc.widthOfString(l));
-  const bar = timelineBarLayout(model.bar.events, model.bar.blocks, width, { labelWidths: widths, lanes: 4, labelGap: 4 });
+  const bar = timelineBarLayout(model.bar.events, model.bar.blocks, width, { labelWidths: widths, lanes: 4, labelGap: 4, dropOverflow: true });
   const top = y + 20;
   const laneY = [y + 9, y, top + 27, top + 35];
   doc.save();
@@ -202,6 +202,7 @@ function drawBar(w: CardWriter, model: ShotCardModel, x: number, y: number, widt
     w.text(h.label, hx - 12, top + 19.5, { width: 24, size: 5.5, align: 'center', colour: COLOURS.dim });
   }
   bar.events.forEach((ev, i) => {
+    if (ev.lane < 0) return;
     const deadline = ev.kind === 'tide-cut-off' || ev.kind === 'moonrise';
     w.text(labels[i] ?? ev.label, x + ev.labelX, laneY[ev.lane] ?? y, { width: (widths[i] ?? 40) + 4, size: BAR_LABEL_SIZE, colour: deadline ? COLOURS.warn : COLOURS.text });
   });

@@ -31,7 +31,7 @@ export interface TimelineBarLayout {
   /**
    * Each event's x, and its label's lane (0 .. lanes - 1) and left edge: labels centred on their
    * ticks (kept inside 0..width) go to the first lane where they do not overlap a label already
-   * placed, left to right; lane 0 when no widths were given.
+   * placed, left to right; lane 0 when no widths were given; -1 for a label left out (dropOverflow).
    */
   events: Array<BarEventInput & { x: number; lane: number; labelX: number }>;
   blocks: Array<BarBlockInput & { x: number; w: number }>;
@@ -50,6 +50,11 @@ export interface BarLabelOptions {
   lanes?: number;
   /** Space kept between labels in one lane, drawing units (default 4). */
   labelGap?: number;
+  /**
+   * What to do with a label that finds no free lane: put it in the lane that frees up first
+   * (false, the default; it may overlap) or leave it out (true: its lane is -1).
+   */
+  dropOverflow?: boolean;
 }
 
 /**
@@ -59,7 +64,8 @@ export interface BarLabelOptions {
  * @param events - events (finite Unix ms), at most 1000
  * @param blocks - blocks (finite Unix ms, end not before start), at most 1000
  * @param width - drawing width, above 0 and at most 100 000
- * @param options - label widths, number of lanes (1..8) and the gap between labels
+ * @param options - label widths, number of lanes (1..8), the gap between labels, and whether a
+ *   label with no free lane is left out
  * @returns the span, each item's x (and width for blocks, at least 2 units), each label's lane
  * @throws RangeError on invalid input or when there is nothing to place
  */
@@ -100,6 +106,7 @@ export function timelineBarLayout(events: readonly BarEventInput[], blocks: read
     for (const i of order) {
       const p = placed[i]!;
       let lane = laneEnds.findIndex((end) => end + gap <= p.labelX);
+      if (lane < 0 && options.dropOverflow) { p.lane = -1; continue; }
       if (lane < 0) lane = laneEnds.indexOf(Math.min(...laneEnds));
       p.lane = lane;
       laneEnds[lane] = p.labelX + p.labelW;

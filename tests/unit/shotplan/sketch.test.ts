@@ -33,6 +33,9 @@ describe('timelineBarLayout', () => {
     // Labels stay inside the bar: the first one's left edge is clamped to 0.
     expect(bar.events[0]!.labelX).toBe(0);
     expect(bar.events[3]!.labelX).toBeLessThanOrEqual(900);
+    // With two lanes the third label finds none free: it shares the lane that frees first, or is left out.
+    expect(timelineBarLayout(events, [], 1000, { labelWidths: [100, 100, 100, 100], lanes: 2, labelGap: 4 }).events.map((e) => e.lane)).toEqual([0, 1, 0, 0]);
+    expect(timelineBarLayout(events, [], 1000, { labelWidths: [100, 100, 100, 100], lanes: 2, labelGap: 4, dropOverflow: true }).events.map((e) => e.lane)).toEqual([0, 1, -1, 0]);
     // Without widths every label is in lane 0.
     expect(timelineBarLayout(events, [], 1000).events.every((e) => e.lane === 0)).toBe(true);
   });
