@@ -30,6 +30,10 @@ import { InviteService } from './services/invite-service';
 import { OutingService } from './services/outing-service';
 import { crewRouter, invitesRouter } from './routes/crew';
 import { outingsRouter, sightlineOutingsRouter } from './routes/outings';
+import { GearService } from './services/gear-service';
+import { ShotCardService } from './services/shot-card-service';
+import { gearRouter } from './routes/gear';
+import { shotPlanRouter } from './routes/shot-plan';
 import { photosRouter, sightlinePhotosRouter } from './routes/photos';
 import { createSmtpMailer, createUnconfiguredMailer } from './mail/mailer';
 import { defaultSchedulerOptions, systemClock, WatchScheduler, type Clock, type WatchSchedulerOptions } from './jobs/watch-scheduler';
@@ -110,6 +114,8 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
   const unsubscribe = new UnsubscribeService(sequelize, unsubscribeTokens);
   const feeds = new CalendarFeedService(sequelize, watchLineups, config.appUrl, clock);
   const outbox = new OutboxService();
+  const gear = new GearService(sequelize);
+  const shotCards = new ShotCardService(sightlines, tides, gear, clock);
 
   // Crews: members and roles, e-mail invites through the same mailer, outings.
   const crew = new CrewService(sequelize, sightlines, clock);
@@ -140,6 +146,9 @@ export function createApp({ config, sequelize, jwtSecret, clientDir, clock = sys
   api.use('/sightlines/:id/outlook', sightlineOutlookRouter({ forecast }));
   api.use('/sightlines/:id/crew', crewRouter({ crew, invites }));
   api.use('/sightlines/:id/outings', sightlineOutingsRouter({ outings }));
+  api.use('/gear', gearRouter({ gear }));
+  // Only POST shot-plan and shot-card; every other /sightlines/:id path falls through.
+  api.use('/sightlines/:id', shotPlanRouter({ shotCards }));
   api.use('/sightlines', sightlinesRouter({ sightlines, notes, tides, lineups, photos }));
   api.use('/lineups', lineupsRouter({ lineups }));
   api.use('/outlook', outlookRouter({ forecast }));

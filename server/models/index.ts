@@ -14,6 +14,9 @@ import { initCrewMemberModel } from './crew-member';
 import { initCrewInviteModel } from './crew-invite';
 import { initOutingModel } from './outing';
 import { initOutingResponseModel } from './outing-response';
+import { initCameraBodyModel } from './camera-body';
+import { initLensModel } from './lens';
+import { initGearSettingsModel } from './gear-settings';
 
 /** Registers every model and association on the instance; call once per Sequelize instance. */
 export function initModels(sequelize: Sequelize) {
@@ -51,9 +54,15 @@ export function initModels(sequelize: Sequelize) {
   CrewInvite.belongsTo(Sightline, { foreignKey: 'sightlineId' });
   Outing.belongsTo(Sightline, { foreignKey: 'sightlineId' });
   Outing.hasMany(OutingResponse, { as: 'responses', foreignKey: 'outingId' });
+  const CameraBody = initCameraBodyModel(sequelize);
+  const Lens = initLensModel(sequelize);
+  const GearSettings = initGearSettingsModel(sequelize);
+  CameraBody.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
+  Lens.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
+  GearSettings.belongsTo(User, { foreignKey: 'userId' });
   return {
     User, DarkWindowCache, Sightline, FieldNote, TideEvent, Photo, Watch, WatchDelivery, OutboxMessage, CalendarFeed,
-    ForecastCache, CrewMember, CrewInvite, Outing, OutingResponse,
+    ForecastCache, CrewMember, CrewInvite, Outing, OutingResponse, CameraBody, Lens, GearSettings,
   };
 }
 
@@ -73,3 +82,6 @@ export { CrewMemberModel } from './crew-member';
 export { CrewInviteModel } from './crew-invite';
 export { OutingModel } from './outing';
 export { OutingResponseModel } from './outing-response';
+export { CameraBodyModel } from './camera-body';
+export { LensModel } from './lens';
+export { GearSettingsModel } from './gear-settings';

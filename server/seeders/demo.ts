@@ -18,6 +18,7 @@ import { SightlineService } from '../services/sightline-service';
 import { TideService } from '../services/tide-service';
 import { demoTideLines } from './demo-tides';
 import { demoScenePhoto } from './demo-photo';
+import { seedDemoGear } from './demo-gear';
 import type { CrewRole } from '../../shared/policy/sightline-policy';
 import { CrewMemberModel } from '../models/crew-member';
 import { OutingService } from '../services/outing-service';
@@ -189,5 +190,7 @@ export async function seedDemo(auth: AuthService, sequelize: Sequelize, options:
     }
     created += 1;
   }
+  // Gear is counted apart: the count is of accounts and sightlines.
+  await seedDemoGear(sequelize);
   return created;
 }

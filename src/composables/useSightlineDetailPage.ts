@@ -7,7 +7,7 @@ import { zoneHeading } from './useLineupTime';
 import { useLineupSearchForm } from './useLineupSearchForm';
 
 /** The tabs of the sightline page. */
-export const SIGHTLINE_TABS = ['lineups', 'night', 'year', 'notes', 'tides', 'photos', 'watch', 'crew'] as const;
+export const SIGHTLINE_TABS = ['lineups', 'night', 'year', 'notes', 'tides', 'photos', 'shotplan', 'watch', 'crew'] as const;
 export type SightlineTab = (typeof SIGHTLINE_TABS)[number];
 
 const pageKey: InjectionKey<SightlinePage> = Symbol('sightline page');

@@ -25,6 +25,7 @@ const routes: RouteRecordRaw[] = [
   { path: '/sightlines/:id/outings/:outingId', name: 'outing', component: () => import('@/views/OutingView.vue'), meta: { requiresAuth: true, title: 'Outing' } },
   // An invite link from an e-mail: works signed out (to register or sign in with the invited address).
   { path: '/invites/accept', name: 'invite-accept', component: () => import('@/views/InviteAcceptView.vue'), meta: { title: 'Crew invite' } },
+  { path: '/gear', name: 'gear', component: () => import('@/views/GearView.vue'), meta: { requiresAuth: true, title: 'Gear' } },
   { path: '/watches', name: 'watches', component: () => import('@/views/WatchesView.vue'), meta: { requiresAuth: true, title: 'Watches' } },
   // The pause link of a watch's e-mail: works signed in or out (neither requiresAuth nor guestOnly).
   { path: '/watches/unsubscribe', name: 'watch-unsubscribe', component: () => import('@/views/WatchUnsubscribeView.vue'), meta: { title: 'Pause a watch' } },

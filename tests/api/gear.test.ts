@@ -1,15 +1,8 @@
 /**
  * Gear API: camera bodies, lenses and settings per user, against the real database.
- *
- * Until the gear routes are mounted in server/app.ts and the models registered in
- * server/models/index.ts, this file builds a small Express app of its own: the real JSON parsing,
- * cookie session (authenticate + TokenService), gear router and error handler, with the gear
- * models registered on the test database here. Once the wiring lands it can use
- * createTestContext's app and signedInAgent instead.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import express, { type Express } from 'express';
-import cookieParser from 'cookie-parser';
+import type { Express } from 'express';
 import request from 'supertest';
 import {
   cameraBodyResponseSchema,
@@ -17,17 +10,13 @@ import {
   gearSettingsResponseSchema,
   lensResponseSchema,
 } from '../../shared/schemas/shot-plan';
-import { authenticate, SESSION_COOKIE } from '../../server/middleware/auth';
-import { apiNotFound, errorHandler } from '../../server/middleware/error-handler';
-import { CameraBodyModel, initCameraBodyModel } from '../../server/models/camera-body';
-import { GearSettingsModel, initGearSettingsModel } from '../../server/models/gear-settings';
-import { initLensModel, LensModel } from '../../server/models/lens';
+import { SESSION_COOKIE } from '../../server/middleware/auth';
+import { CameraBodyModel } from '../../server/models/camera-body';
+import { GearSettingsModel } from '../../server/models/gear-settings';
+import { LensModel } from '../../server/models/lens';
 import type { UserModel } from '../../server/models/user';
-import { gearRouter } from '../../server/routes/gear';
 import { seedDemoGear } from '../../server/seeders/demo-gear';
-import { GearService } from '../../server/services/gear-service';
 import { TokenService } from '../../server/services/token-service';
-import { UserService } from '../../server/services/user-service';
 import { createTestContext, createUser, TEST_JWT_SECRET, uniqueEmail, type TestContext } from './helpers';
 
 let ctx: TestContext;
@@ -36,19 +25,7 @@ const tokens = new TokenService(TEST_JWT_SECRET, 1);
 
 beforeAll(async () => {
   ctx = await createTestContext();
-  initCameraBodyModel(ctx.db.sequelize);
-  initLensModel(ctx.db.sequelize);
-  initGearSettingsModel(ctx.db.sequelize);
-  const gear = new GearService(ctx.db.sequelize);
-  app = express();
-  const api = express.Router();
-  api.use(express.json({ limit: '256kb' }));
-  api.use(cookieParser());
-  api.use(authenticate(tokens, new UserService()));
-  api.use('/gear', gearRouter({ gear }));
-  api.use(apiNotFound);
-  app.use('/api', api);
-  app.use(errorHandler);
+  app = ctx.app;
 });
 afterAll(async () => { await ctx.db.close(); });
 

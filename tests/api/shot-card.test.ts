@@ -1,36 +1,23 @@
 /**
  * Shot plan and shot card API: POST /api/sightlines/:id/shot-plan and /shot-card?format=html|pdf
  * on a fixed lineup, against the real database.
- *
- * Until the routes are mounted in server/app.ts and the gear models registered in
- * server/models/index.ts, this file builds a small Express app of its own (the real JSON parsing,
- * cookie session, routers and error handler) and registers the gear models on the test database.
- * Once the wiring lands it can use createTestContext's app and signedInAgent instead.
+ * The real app, with its clock set to 2027-04-20 12:00 UTC.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import express, { type Express } from 'express';
-import cookieParser from 'cookie-parser';
 import request from 'supertest';
+import type { Express } from 'express';
+import { SESSION_COOKIE } from '../../server/middleware/auth';
 import { DateTime } from 'luxon';
 import { PDFParse } from 'pdf-parse';
 import { shotPlanResponseSchema, type ShotPlan } from '../../shared/schemas/shot-plan';
-import { authenticate, SESSION_COOKIE } from '../../server/middleware/auth';
-import { apiNotFound, errorHandler } from '../../server/middleware/error-handler';
-import { initCameraBodyModel } from '../../server/models/camera-body';
 import { CrewMemberModel } from '../../server/models/crew-member';
-import { initGearSettingsModel } from '../../server/models/gear-settings';
-import { initLensModel } from '../../server/models/lens';
 import type { UserModel } from '../../server/models/user';
-import { gearRouter } from '../../server/routes/gear';
-import { shotPlanRouter } from '../../server/routes/shot-plan';
 import { FieldNoteService } from '../../server/services/field-note-service';
 import { GearService } from '../../server/services/gear-service';
-import { ShotCardService } from '../../server/services/shot-card-service';
 import { SightlineService } from '../../server/services/sightline-service';
 import { TideService } from '../../server/services/tide-service';
 import { TokenService } from '../../server/services/token-service';
-import { UserService } from '../../server/services/user-service';
-import { createTestContext, createUser, TEST_JWT_SECRET, type TestContext } from './helpers';
+import { createTestApp, createTestContext, createUser, TEST_JWT_SECRET, type TestContext } from './helpers';
 
 let ctx: TestContext;
 let app: Express;
@@ -41,23 +28,10 @@ const tokens = new TokenService(TEST_JWT_SECRET, 1);
 
 beforeAll(async () => {
   ctx = await createTestContext();
-  initCameraBodyModel(ctx.db.sequelize);
-  initLensModel(ctx.db.sequelize);
-  initGearSettingsModel(ctx.db.sequelize);
   sightlines = new SightlineService();
   tides = new TideService(ctx.db.sequelize, sightlines);
   gear = new GearService(ctx.db.sequelize);
-  const shotCards = new ShotCardService(sightlines, tides, gear, () => new Date('2027-04-20T12:00:00Z'));
-  app = express();
-  const api = express.Router();
-  api.use(express.json({ limit: '256kb' }));
-  api.use(cookieParser());
-  api.use(authenticate(tokens, new UserService()));
-  api.use('/gear', gearRouter({ gear }));
-  api.use('/sightlines/:id', shotPlanRouter({ shotCards }));
-  api.use(apiNotFound);
-  app.use('/api', api);
-  app.use(errorHandler);
+  app = createTestApp(ctx.db, {}, { clock: () => new Date('2027-04-20T12:00:00Z') }).app;
 });
 afterAll(async () => { await ctx.db.close(); });
 
