@@ -67,3 +67,40 @@ function safeJson(text: string): unknown {
     return undefined;
   }
 }
+
+/** A downloaded file: its bytes and the name the server suggests. */
+export interface DownloadedFile {
+  blob: Blob;
+  filename: string;
+}
+
+function filenameOf(response: Response, fallback: string): string {
+  const header = response.headers.get('Content-Disposition') ?? '';
+  const match = /filename\*?=(?:UTF-8'')?"?([^";]+)"?/i.exec(header);
+  return match?.[1] ? decodeURIComponent(match[1]) : fallback;
+}
+
+/**
+ * A POST whose answer is a file (a calendar, a CSV, a shot card), not JSON. Same conventions as
+ * `request()`: same origin, cookies, JSON body, errors as ApiError from the shared error schema.
+ */
+export async function requestFile(path: string, body: unknown, fallbackName: string): Promise<DownloadedFile> {
+  let response: Response;
+  try {
+    response = await fetch(`/api${path}`, {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify(body),
+    });
+  } catch {
+    throw new ApiError(0, 'network', 'Cannot reach the Gnomon server. Check your connection and try again.');
+  }
+  if (!response.ok) {
+    const text = await response.text();
+    const parsed = apiErrorBodySchema.safeParse(text ? safeJson(text) : undefined);
+    if (parsed.success) throw new ApiError(response.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.fields);
+    throw new ApiError(response.status, 'internal', `The server answered ${response.status}`);
+  }
+  return { blob: await response.blob(), filename: filenameOf(response, fallbackName) };
+}

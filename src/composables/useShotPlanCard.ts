@@ -1,20 +1,8 @@
 import { ref } from 'vue';
 import { useMessage } from 'naive-ui';
+import { saveFile } from './saveFile';
 import type { ShotCardFormat } from '../../shared/schemas/shot-plan';
 import { useShotPlanStore } from '@/stores/shotPlan';
-
-/** Hands a file to the browser as a download. */
-function saveFile(blob: Blob, filename: string): void {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = filename;
-  a.rel = 'noopener';
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 10_000);
-}
 
 /**
  * The shot card buttons: the HTML card opens in a new tab (the tab is opened at the click, so a
