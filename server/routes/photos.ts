@@ -108,7 +108,7 @@ export function photosRouter({ photos }: Pick<PhotoRouterDeps, 'photos'>): Route
   router.patch('/:id', validateBody(photoUpdateSchema), async (req, res) => {
     const { id } = parseOrThrow(photoParams, req.params);
     const photo = await photos.update(req.user!, id, req.body);
-    res.json({ photo: photo.toPublic({ showPrivate: true }) });
+    res.json({ photo: photo.toPublic({ showPrivate: photos.isOwner(req.user!, photo) }) });
   });
 
   router.delete('/:id', async (req, res) => {

@@ -45,11 +45,9 @@ export class CalendarFeedService {
 
   /** A new secret: the old address answers 404 from now on. */
   async rotate(user: UserModel): Promise<CalendarFeed> {
-    return this.sequelize.transaction(async (transaction) => {
-      await CalendarFeedModel.destroy({ where: { userId: user.id }, transaction });
-      const feed = await CalendarFeedModel.create({ userId: user.id, secret: newSecret() }, { transaction });
-      return this.toPublic(feed);
-    });
+    // One upsert: two rotations at once (a double click) both succeed, the last one's secret wins.
+    const [feed] = await CalendarFeedModel.upsert({ userId: user.id, secret: newSecret(), createdAt: new Date() }, { returning: true });
+    return this.toPublic(feed);
   }
 
   /** The iCalendar text for a secret (no sign-in); 404 for an unknown or rotated one. */

@@ -9,6 +9,7 @@ import { AppError } from '../errors';
 import { CrewInviteModel } from '../models/crew-invite';
 import { CrewMemberModel } from '../models/crew-member';
 import { UserModel } from '../models/user';
+import { WatchModel } from '../models/watch';
 import type { SightlineService } from './sightline-service';
 
 const userInclude = [{ model: UserModel, as: 'user', attributes: ['id', 'name', 'email'] }];
@@ -57,7 +58,8 @@ export class CrewService {
 
   /**
    * Removes a member: the owner may remove anyone in the crew; a member may remove themselves
-   * (leave). The owner cannot leave (hand the sightline over first).
+   * (leave). The owner cannot leave (hand the sightline over first). The member's watches on the
+   * sightline are deleted with the membership (their deliveries cascade).
    */
   async remove(user: UserModel, sightlineId: string, memberId: string): Promise<void> {
     await this.sequelize.transaction(async (transaction) => {
@@ -65,6 +67,8 @@ export class CrewService {
       await this.sightlines.get(user, sightlineId, action, transaction);
       const removed = await CrewMemberModel.destroy({ where: { sightlineId, userId: memberId }, transaction });
       if (removed === 0) throw AppError.notFound('That person is not in the crew');
+      // Their watches on it go too: they can no longer see the sightline, so its e-mails must stop.
+      await WatchModel.destroy({ where: { sightlineId, ownerId: memberId }, transaction });
     });
   }
 

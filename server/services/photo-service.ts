@@ -147,8 +147,10 @@ export class PhotoService {
     }
   }
 
+  /** Shows or hides the GPS position to others: the photo's owner only (it is their position). */
   async update(user: UserModel, photoId: string, change: PhotoUpdate): Promise<PhotoModel> {
-    const photo = await this.get(user, photoId, 'edit');
+    const photo = await this.get(user, photoId, 'read');
+    if (!this.isOwner(user, photo)) throw new AppError('forbidden', 'Only the person who uploaded the photo can show or hide its position');
     await photo.update({ hideGps: change.hideGps });
     return photo;
   }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { hasNoNul, NUL_MESSAGE } from './text';
 
 /** Minimum password length for new accounts. */
 export const PASSWORD_MIN_LENGTH = 10;
@@ -14,7 +15,7 @@ export const emailSchema = z.string({ error: 'E-mail is required' })
   .pipe(z.email({ error: 'Enter a valid e-mail address' }));
 
 export const registerRequestSchema = z.object({
-  name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(100, 'Name is at most 100 characters'),
+  name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(100, 'Name is at most 100 characters').refine(hasNoNul, NUL_MESSAGE),
   email: emailSchema,
   password: z.string({ error: 'Password is required' })
     .min(PASSWORD_MIN_LENGTH, `Password must be at least ${PASSWORD_MIN_LENGTH} characters`)

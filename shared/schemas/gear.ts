@@ -4,6 +4,7 @@
  * pitch) are in shared/shotplan/gear.ts.
  */
 import { z } from 'zod';
+import { hasNoNul, NUL_MESSAGE } from './text';
 
 /** Smallest and largest sensor side accepted, mm (phone sensors to large medium format). */
 export const MIN_SENSOR_SIDE_MM = 1;
@@ -50,7 +51,7 @@ export function pixelPitchFromCountUm(
 }
 
 const gearNameSchema = (what: string) =>
-  z.string({ error: `Name the ${what}` }).trim().min(1, `Name the ${what}`).max(MAX_GEAR_NAME_CHARS, `A name is at most ${MAX_GEAR_NAME_CHARS} characters`);
+  z.string({ error: `Name the ${what}` }).trim().min(1, `Name the ${what}`).max(MAX_GEAR_NAME_CHARS, `A name is at most ${MAX_GEAR_NAME_CHARS} characters`).refine(hasNoNul, NUL_MESSAGE);
 
 const boundedNumber = (label: string, unit: string, min: number, max: number) =>
   z.number({ error: `${label} must be a number` })

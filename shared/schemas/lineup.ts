@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { hasNoNul, NUL_MESSAGE } from './text';
 import { findTarget } from '../sky/catalogue';
 import { MS_PER_DAY } from '../units';
 import { equatorialJ2000Schema, frameSchema, landmarkSchema, latitudeSchema, longitudeSchema, vantageSchema } from './geometry';
@@ -29,7 +30,7 @@ export const catalogueTargetRefSchema = z.object({
 });
 
 export const customTargetSchema = equatorialJ2000Schema.extend({
-  name: z.string().trim().min(1, 'Name the custom target').max(80),
+  name: z.string().trim().min(1, 'Name the custom target').max(80).refine(hasNoNul, NUL_MESSAGE),
 });
 
 /** A catalogue target by id, or a custom J2000 position with a name. */

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { hasNoNul, NUL_MESSAGE } from './text';
 import { latitudeSchema, longitudeSchema } from './geometry';
 import { isoInstantSchema, isRealCalendarDate } from './lineup';
 
@@ -14,7 +15,8 @@ const nightSchema = z.string({ error: 'Choose the night' })
 export const localDateTimeSchema = z.string({ error: 'Give the meeting time' })
   .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, 'Give the meeting time as YYYY-MM-DDTHH:mm in the site\'s time zone')
   .refine((s) => isRealCalendarDate(s.slice(0, 10)), 'That day does not exist')
-  .refine((s) => { const [h, m] = s.slice(11).split(':').map(Number) as [number, number]; return h < 24 && m < 60; }, 'That time does not exist');
+  .refine((s) => { const [h, m] = s.slice(11).split(':').map(Number) as [number, number]; return h < 24 && m < 60; }, 'That time does not exist')
+  .refine((s) => { const y = Number(s.slice(0, 4)); return y >= 1900 && y < 2200; }, 'Meeting times from 1900 to 2199 only');
 
 /** The lineup an outing is for, as the search gave it. */
 export const outingLineupSchema = z.strictObject({
@@ -23,8 +25,8 @@ export const outingLineupSchema = z.strictObject({
   peak: isoInstantSchema,
 }).refine((l) => l.start < l.end && l.start <= l.peak && l.peak <= l.end, { message: 'The lineup must start before it ends, with the peak between', path: ['end'] });
 
-const meetingNoteSchema = z.string().trim().max(500, 'At most 500 characters');
-const gearNotesSchema = z.string().trim().max(5000, 'At most 5000 characters');
+const meetingNoteSchema = z.string().trim().max(500, 'At most 500 characters').refine(hasNoNul, NUL_MESSAGE);
+const gearNotesSchema = z.string().trim().max(5000, 'At most 5000 characters').refine(hasNoNul, NUL_MESSAGE);
 
 /** POST /api/sightlines/:id/outings */
 export const outingInputSchema = z.strictObject({
@@ -51,7 +53,7 @@ export type OutingUpdate = z.infer<typeof outingUpdateSchema>;
 /** PUT /api/outings/:id/answer */
 export const outingAnswerInputSchema = z.strictObject({
   answer: z.enum(outingAnswers, { error: 'Answer going, maybe or not-going' }),
-  note: z.string().trim().max(500, 'At most 500 characters').default(''),
+  note: z.string().trim().max(500, 'At most 500 characters').refine(hasNoNul, NUL_MESSAGE).default(''),
 });
 export type OutingAnswerInput = z.infer<typeof outingAnswerInputSchema>;
 

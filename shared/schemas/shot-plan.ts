@@ -131,6 +131,7 @@ export const DEFAULT_UNTRACKED_INTEGRATION_S = 300;
 
 const instantSchema = (what: string) =>
   z.iso.datetime({ offset: true, error: `Give ${what} as an ISO date-time such as 2027-05-20T23:10:00Z` })
+    .refine((s) => { const y = new Date(s).getUTCFullYear(); return y >= 1900 && y < 2200; }, { message: `Give ${what} between 1900 and 2199` })
     .transform((s) => new Date(s));
 
 /** The lineup being planned, as the lineup search returned it (ISO instants). */

@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { hasNoNul, NUL_MESSAGE } from './text';
 import { sightlineRoles } from '../policy/sightline-policy';
 import { landmarkSchema, vantageSchema } from './geometry';
 import { catalogueTargetRefSchema } from './lineup';
 import { tideEventSchema, tideRuleSchema } from '../tide/schemas';
 
-export const sightlineNameSchema = z.string({ error: 'Name the sightline' }).trim().min(1, 'Name the sightline').max(100, 'Name is at most 100 characters');
+export const sightlineNameSchema = z.string({ error: 'Name the sightline' }).trim().min(1, 'Name the sightline').max(100, 'Name is at most 100 characters').refine(hasNoNul, NUL_MESSAGE);
 
 /** What a user saves: the two pins with their heights, the band above the landmark, the usual target. */
 export const sightlineInputSchema = z.object({
@@ -53,7 +54,7 @@ export const sightlineListResponseSchema = z.object({ sightlines: z.array(sightl
 export const fieldNoteKinds = ['access', 'tide', 'hazard', 'general'] as const;
 export const fieldNoteInputSchema = z.object({
   kind: z.enum(fieldNoteKinds, { error: 'Kind is one of access, tide, hazard, general' }),
-  body: z.string({ error: 'Write the note' }).trim().min(1, 'Write the note').max(5000, 'A note is at most 5000 characters'),
+  body: z.string({ error: 'Write the note' }).trim().min(1, 'Write the note').max(5000, 'A note is at most 5000 characters').refine(hasNoNul, NUL_MESSAGE),
 });
 export type FieldNoteInput = z.infer<typeof fieldNoteInputSchema>;
 

@@ -4,6 +4,8 @@ import { fieldNoteInputSchema, fieldNoteKinds, type FieldNote, type FieldNoteInp
 import { formatLocalTime } from '../../shared/sky';
 import { useFieldNotesStore } from '@/stores/fieldNotes';
 import { useSightlineDetailStore } from '@/stores/sightlineDetail';
+import { useSessionStore } from '@/stores/session';
+import { canChangeNoteAs, roleAllows } from '../../shared/policy/sightline-policy';
 import { useFieldErrors } from './useFieldErrors';
 
 /** Labels of the note kinds, in the order of the schema. */
@@ -40,12 +42,17 @@ export function useNotesList() {
   const editErrors = useFieldErrors<NoteField>();
   const saving = ref(false);
 
+  const session = useSessionStore();
+  const role = computed(() => detail.sightline?.myRole ?? 'outsider');
+  /** May this person add notes here (owner and crew; not admins looking in for support). */
+  const canAdd = computed(() => roleAllows(role.value, 'add-note'));
   const timeZone = computed(() => detail.timeZone);
   const items = computed(() => store.notes.map((n) => ({
     ...n,
     kindLabel: NOTE_KIND_LABELS[n.kind],
     when: formatLocalTime(new Date(n.createdAt), timeZone.value),
     edited: n.updatedAt !== n.createdAt ? formatLocalTime(new Date(n.updatedAt), timeZone.value) : null,
+    canChange: canChangeNoteAs(role.value, session.user?.id ?? '', n.authorId),
   })));
 
   async function add(): Promise<void> {
@@ -109,5 +116,5 @@ export function useNotesList() {
     });
   }
 
-  return { store, items, draft, draftErrors, adding, add, editingId, edit, editErrors, saving, startEdit, cancelEdit, saveEdit, confirmDelete };
+  return { store, items, canAdd, draft, draftErrors, adding, add, editingId, edit, editErrors, saving, startEdit, cancelEdit, saveEdit, confirmDelete };
 }

@@ -1,6 +1,7 @@
 import { computed, h, reactive, ref } from 'vue';
 import { useRouter } from 'vue-router';
-import { NButton, NSpace, useDialog, useMessage, type DataTableColumns } from 'naive-ui';
+import { NButton, NSpace, NTag, useDialog, useMessage, type DataTableColumns } from 'naive-ui';
+import { roleAllows } from '../../shared/policy/sightline-policy';
 import { formatDecimalDegrees } from '../../shared/geo';
 import type { Sightline } from '../../shared/schemas/sightline';
 import { findTarget, formatLocalTime } from '../../shared/sky';
@@ -127,8 +128,10 @@ export function useSightlineTable() {
       render: (row) => h(NSpace, { size: 6, wrap: false }, () => [
         h(NButton, { size: 'small', type: 'primary', secondary: true, 'data-testid': 'sightline-open', onClick: () => open(row) }, () => 'Open'),
         h(NButton, { size: 'small', secondary: true, 'data-testid': 'sightline-lineups', onClick: () => { void router.push({ name: 'sightline', params: { id: row.id } }); } }, () => 'Lineups'),
-        h(NButton, { size: 'small', 'data-testid': 'sightline-rename', onClick: () => startRename(row) }, () => 'Rename'),
-        h(NButton, { size: 'small', type: 'error', secondary: true, 'data-testid': 'sightline-delete', onClick: () => confirmDelete(row) }, () => 'Delete'),
+        // Only what the person's role allows (the shared policy table): crew members see shared rows.
+        roleAllows(row.myRole, 'edit') ? h(NButton, { size: 'small', 'data-testid': 'sightline-rename', onClick: () => startRename(row) }, () => 'Rename') : null,
+        roleAllows(row.myRole, 'delete') ? h(NButton, { size: 'small', type: 'error', secondary: true, 'data-testid': 'sightline-delete', onClick: () => confirmDelete(row) }, () => 'Delete') : null,
+        row.myRole === 'editor' || row.myRole === 'viewer' ? h(NTag, { size: 'small', bordered: false, 'data-testid': 'sightline-shared-role' }, () => `shared · ${row.myRole}`) : null,
       ]),
     },
   ];

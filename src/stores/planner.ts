@@ -1,3 +1,4 @@
+import { roleAllows } from '../../shared/policy/sightline-policy';
 import { defineStore } from 'pinia';
 import { computed, reactive, ref } from 'vue';
 import type { GeoPoint } from '../../shared/geo';
@@ -47,7 +48,7 @@ export const usePlannerStore = defineStore('planner', () => {
   /** The chosen instant (UTC ms) within the night; null: the default instant of the night. */
   const timeMs = ref<number | null>(null);
   /** The saved sightline the plan was opened from or saved as. */
-  const opened = ref<{ id: string; name: string } | null>(null);
+  const opened = ref<{ id: string; name: string; canEdit: boolean } | null>(null);
   const mapView = ref<MapView | null>(null);
   /** Whether the map shows where to stand. */
   const showWhereToStand = ref(false);
@@ -108,7 +109,7 @@ export const usePlannerStore = defineStore('planner', () => {
     } satisfies PinHeights);
     bandHeightDeg.value = s.bandHeightDeg;
     targetId.value = s.targetId;
-    opened.value = { id: s.id, name: s.name };
+    opened.value = { id: s.id, name: s.name, canEdit: roleAllows(s.myRole, 'edit') };
     placing.value = 'landmark';
     mapView.value = null;
     // Another site, maybe another zone: start from the default instant of its night.
@@ -117,7 +118,7 @@ export const usePlannerStore = defineStore('planner', () => {
 
   /** Marks the plan as saved under this sightline. */
   function markSaved(s: Sightline): void {
-    opened.value = { id: s.id, name: s.name };
+    opened.value = { id: s.id, name: s.name, canEdit: roleAllows(s.myRole, 'edit') };
   }
 
   /** Starts an empty plan (the night, target and units stay). */

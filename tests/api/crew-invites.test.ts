@@ -203,7 +203,11 @@ describe('ownership and leaving', () => {
     await leaver.update({ email });
     const leaverAgent = await signedInAgent(ctx.app, leaver);
     await leaverAgent.post('/api/invites/accept').send({ token: tokenOf(created.link) });
+    // A watch the member keeps on it goes with the membership: its e-mails must stop.
+    const watch = await leaverAgent.post('/api/watches').send({ sightlineId, paused: true });
+    expect(watch.status).toBe(201);
     expect((await leaverAgent.delete(`/api/sightlines/${sightlineId}/crew/${leaver.id}`)).status).toBe(204);
+    expect((await leaverAgent.get(`/api/watches/${watch.body.watch.id}`)).status).toBe(404);
     expect((await leaverAgent.get(`/api/sightlines/${sightlineId}`)).status).toBe(404);
     const ownerLeaves = await agent.delete(`/api/sightlines/${sightlineId}/crew/${owner.id}`);
     expect(ownerLeaves.status).toBe(403);

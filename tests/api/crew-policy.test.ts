@@ -38,6 +38,8 @@ const sightlineBody = {
 interface Fixture {
   sightlineId: string;
   outingId: string;
+  /** A photo the owner uploaded. */
+  photoId: string;
   users: Record<Role, UserModel>;
   agents: Record<Role, request.Agent>;
 }
@@ -62,7 +64,10 @@ async function fixture(): Promise<Fixture> {
     night: '2027-06-05', meetingPoint: { lat: 50.601, lon: -1.951 }, meetingLocal: '2027-06-05T22:30',
   });
   expect(outing.status).toBe(201);
-  return { sightlineId, outingId: outing.body.outing.id, users, agents };
+  const photo = await agents.owner.post(`/api/sightlines/${sightlineId}/photos`)
+    .attach('photo', await sharp({ create: { width: 40, height: 30, channels: 3, background: '#224466' } }).jpeg().toBuffer(), { filename: 'o.jpg', contentType: 'image/jpeg' });
+  expect(photo.status).toBe(201);
+  return { sightlineId, outingId: outing.body.outing.id, photoId: photo.body.photo.id, users, agents };
 }
 
 let f: Fixture;
@@ -87,6 +92,8 @@ const ROWS: Array<{ action: string; call: Call; expect: Record<Role, number> }> 
   { action: 'set the tide rule', call: (a, x) => a.put(`/api/sightlines/${x.sightlineId}/tide-rule`).send({ rule: null }), expect: { owner: 200, editor: 200, viewer: 403, admin: 403, outsider: 404 } },
   { action: 'paste tide times', call: (a, x) => a.post(`/api/sightlines/${x.sightlineId}/tide-times`).send({ text: '2027-06-05 04:10 L 0.6' }), expect: { owner: 200, editor: 200, viewer: 403, admin: 403, outsider: 404 } },
   { action: 'upload a photo', call: (a, x) => a.post(`/api/sightlines/${x.sightlineId}/photos`).attach('photo', jpeg, { filename: 'p.jpg', contentType: 'image/jpeg' }), expect: { owner: 201, editor: 201, viewer: 403, admin: 403, outsider: 404 } },
+  // The GPS privacy of a photo is its uploader's alone, whatever the role on the sightline.
+  { action: "show or hide the owner's photo position", call: (a, x) => a.patch(`/api/photos/${x.photoId}`).send({ hideGps: true }), expect: { owner: 200, editor: 403, viewer: 403, admin: 403, outsider: 404 } },
   { action: 'list the photos', call: (a, x) => a.get(`/api/sightlines/${x.sightlineId}/photos`), expect: { owner: 200, editor: 200, viewer: 200, admin: 200, outsider: 404 } },
   { action: 'add a field note', call: (a, x) => a.post(`/api/sightlines/${x.sightlineId}/notes`).send({ kind: 'general', body: 'Seen from the crew' }), expect: { owner: 201, editor: 201, viewer: 201, admin: 403, outsider: 404 } },
   { action: 'list the field notes', call: (a, x) => a.get(`/api/sightlines/${x.sightlineId}/notes`), expect: { owner: 200, editor: 200, viewer: 200, admin: 200, outsider: 404 } },

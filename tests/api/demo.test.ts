@@ -42,7 +42,9 @@ describe('demo seeding', () => {
     expect(admin?.role).toBe('admin');
 
     // Each sightline with tides has about two highs and two lows a day for 31 days.
-    const cove = await SightlineModel.findOne({ where: { name: demoSightlines[0]!.input.name } });
+    // The demo owner's own cove (another test file may name a sightline of its own the same).
+    const coveOwner = await UserModel.findOne({ where: { email: demoSightlines[0]!.ownerEmail } });
+    const cove = await SightlineModel.findOne({ where: { name: demoSightlines[0]!.input.name, ownerId: coveOwner!.id } });
     const count = await TideEventModel.count({ where: { sightlineId: cove!.id } });
     expect(count).toBeGreaterThan(31 * 3.8);
     expect(count).toBeLessThan(31 * 4 + 2);

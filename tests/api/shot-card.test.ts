@@ -42,7 +42,7 @@ const cookieOf = (user: UserModel) => `${SESSION_COOKIE}=${tokens.sign({ sub: us
  * and one of its galactic-centre lineups as the lineup search (shared/lineup) finds it for the
  * night of 30 April 2027, to the second.
  */
-const SITE_NAME = 'Kestrel Stack from the south cove';
+const SITE_NAME = 'Shot card test stack';
 const sightlineInput = {
   name: SITE_NAME,
   vantage: { lat: 50.5755, lon: -4.9115, elevationM: 3, cameraHeightM: 1.5 },
@@ -230,7 +230,7 @@ describe('POST /api/sightlines/:id/shot-card', () => {
       .parse(binary);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
-    expect(res.headers['content-disposition']).toBe('attachment; filename="shot-card-kestrel-stack-from-the-south-cove-2027-04-30.pdf"');
+    expect(res.headers['content-disposition']).toBe('attachment; filename="shot-card-shot-card-test-stack-2027-04-30.pdf"');
     const pdf = res.body as Buffer;
     expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     // pdf-parse (a PDF text extractor from the registry) reads the text back.
