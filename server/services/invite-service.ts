@@ -19,6 +19,8 @@ import { InviteTokenError, InviteTokens } from './invite-tokens';
 import type { SightlineService } from './sightline-service';
 
 const DAY_MS = 86_400_000;
+/** Most invite e-mails one sightline sends in a day: the app's mailer is not for mass mail. */
+export const MAX_INVITES_PER_SIGHTLINE_PER_DAY = 30;
 
 export interface InviteServiceOptions {
   /** The address people open, e.g. https://gnomon.example.org (no trailing slash). */
@@ -56,6 +58,10 @@ export class InviteService {
     const now = this.clock();
     const invite = await this.sequelize.transaction(async (transaction) => {
       const sightline = await this.sightlines.get(user, sightlineId, 'manage-crew', transaction);
+      const sentToday = await CrewInviteModel.count({ where: { sightlineId, createdAt: { [Op.gt]: new Date(now.getTime() - DAY_MS) } }, transaction });
+      if (sentToday >= MAX_INVITES_PER_SIGHTLINE_PER_DAY) {
+        throw new AppError('rate_limited', `This sightline has sent ${MAX_INVITES_PER_SIGHTLINE_PER_DAY} invites in the last day; try again tomorrow`);
+      }
       const invitee = await UserModel.findOne({ where: { email: input.email }, transaction });
       if (invitee?.id === sightline.ownerId) throw new AppError('validation', 'That is your own address', { email: 'Invite someone else' });
       if (invitee && (await CrewMemberModel.findOne({ where: { sightlineId, userId: invitee.id }, transaction }))) {
@@ -79,7 +85,8 @@ export class InviteService {
         throw error;
       }
     });
-    const sightline = (await SightlineModel.findByPk(sightlineId))!;
+    const sightline = await SightlineModel.findByPk(sightlineId);
+    if (!sightline) throw AppError.notFound('No such sightline');
     const link = this.linkFor(invite);
     const mail = renderInviteEmail({ inviterName: user.name, sightlineName: sightline.name, role: input.role, link, expiresAt: invite.expiresAt });
     let mailError: string | null = null;

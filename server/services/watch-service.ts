@@ -9,6 +9,9 @@ import type { SightlineService } from './sightline-service';
 
 const sightlineInclude = [{ model: SightlineModel, as: 'sightline' }];
 
+/** Most watches one person keeps: each costs lineup searches on every scan. */
+export const MAX_WATCHES_PER_USER = 100;
+
 /**
  * Who may see and change a watch: its owner only (crews come later). An outsider must not learn
  * that a watch exists, so "not yours" is a 404, as for sightlines.
@@ -65,6 +68,9 @@ export class WatchService {
     // Watching needs only read access to the sightline (the access policy's 'read').
     const sightline = await this.sightlines.get(user, input.sightlineId, 'read');
     refuseReachableWithoutTideRule(sightline, input.reachableOnly);
+    if ((await WatchModel.count({ where: { ownerId: user.id } })) >= MAX_WATCHES_PER_USER) {
+      throw new AppError('conflict', `You keep ${MAX_WATCHES_PER_USER} watches already; delete one first`);
+    }
     const created = await WatchModel.create({
       ownerId: user.id,
       sightlineId: sightline.id,

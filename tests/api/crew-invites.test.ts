@@ -7,6 +7,9 @@ import request from 'supertest';
 import { simpleParser } from 'mailparser';
 import { SmtpFake } from '../../server/mail/smtp-fake';
 import { OutboxMessageModel } from '../../server/models/outbox-message';
+import { WatchModel } from '../../server/models/watch';
+import { MAX_INVITES_PER_SIGHTLINE_PER_DAY } from '../../server/services/invite-service';
+import { MAX_WATCHES_PER_USER } from '../../server/services/watch-service';
 import { crewInviteCreatedSchema, crewResponseSchema, INVITE_VALID_DAYS } from '../../shared/schemas/crew';
 import { createTestApp, createTestContext, createUser, signedInAgent, TEST_PASSWORD, uniqueEmail, type TestContext } from './helpers';
 
@@ -167,6 +170,32 @@ describe('crew invites', () => {
     expect(second.body.mailSent).toBe(true);
     const crew = crewResponseSchema.parse((await agent.get(`/api/sightlines/${sightlineId}/crew`)).body);
     expect(crew.invites.map((i) => [i.role, i.status])).toEqual([['editor', 'pending'], ['viewer', 'revoked']]);
+  });
+});
+
+describe('limits', () => {
+  it('refuses the 31st invite of a sightline within a day with 429', async () => {
+    const { agent, sightlineId } = await ownerWithSightline();
+    for (let i = 0; i < MAX_INVITES_PER_SIGHTLINE_PER_DAY; i++) {
+      expect((await agent.post(`/api/sightlines/${sightlineId}/crew/invites`).send({ email: uniqueEmail(`many${i}`), role: 'viewer' })).status).toBe(201);
+    }
+    const refused = await agent.post(`/api/sightlines/${sightlineId}/crew/invites`).send({ email: uniqueEmail('one-more'), role: 'viewer' });
+    expect(refused.status).toBe(429);
+    expect(refused.body.error.message).toMatch(/in the last day/);
+  });
+
+  it('refuses a watch past the per-person limit with 409 and keeps the others', async () => {
+    const { owner, agent, sightlineId } = await ownerWithSightline();
+    // Paused watches, made directly: the scheduler tests must find no active watch left behind.
+    await WatchModel.bulkCreate(Array.from({ length: MAX_WATCHES_PER_USER }, () => ({
+      ownerId: owner.id, sightlineId, target: { id: 'galactic-centre' }, minScore: 0.3, minDurationMin: 5,
+      reachableOnly: false, weekdays: [1, 2, 3, 4, 5, 6, 7], leadDays: [3, 0], paused: true, maxCloudPct: null,
+    })));
+    const refused = await agent.post('/api/watches').send({ sightlineId, paused: true });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/delete one first/);
+    expect(await WatchModel.count({ where: { ownerId: owner.id } })).toBe(MAX_WATCHES_PER_USER);
+    await WatchModel.destroy({ where: { ownerId: owner.id } });
   });
 });
 
