@@ -27,6 +27,20 @@ function meetingInstant(local: string, zone: string): Date {
   return at.toJSDate();
 }
 
+/**
+ * Refuses a meeting that is not on the outing's night: from 06:00 on the evening's date to 12:00
+ * the next day, site time (long drives start in the afternoon; nobody meets after the dawn).
+ */
+function checkMeetingOnNight(meetingLocal: string, night: string): void {
+  const day = DateTime.fromISO(night, { zone: 'UTC' });
+  const from = day.toFormat("yyyy-MM-dd'T'06:00");
+  const to = day.plus({ days: 1 }).toFormat("yyyy-MM-dd'T'12:00");
+  if (meetingLocal < from || meetingLocal > to) {
+    const message = `Meet on the night of ${night}: between ${from.replace('T', ' ')} and ${to.replace('T', ' ')} site time`;
+    throw new AppError('validation', message, { meetingLocal: message });
+  }
+}
+
 export class OutingService {
   constructor(private readonly sightlines: SightlineService) {}
 
@@ -45,6 +59,7 @@ export class OutingService {
 
   async create(user: UserModel, sightlineId: string, input: OutingInput): Promise<Outing> {
     const sightline = await this.sightlines.get(user, sightlineId, 'plan-outing');
+    checkMeetingOnNight(input.meetingLocal, input.night);
     const outing = await OutingModel.create({
       id: randomUUID(),
       sightlineId,
@@ -76,6 +91,7 @@ export class OutingService {
 
   async update(user: UserModel, outingId: string, change: OutingUpdate): Promise<Outing> {
     const { outing, sightline } = await this.find(user, outingId, 'plan-outing');
+    if (change.meetingLocal) checkMeetingOnNight(change.meetingLocal, outing.night);
     await outing.update({
       ...(change.meetingPoint ? { meetingLat: change.meetingPoint.lat, meetingLon: change.meetingPoint.lon } : {}),
       ...(change.meetingLocal ? { meetingAt: meetingInstant(change.meetingLocal, sightline.timezone) } : {}),

@@ -79,6 +79,11 @@ describe('outings', () => {
     expect(noPoint.status).toBe(400);
     expect(noPoint.body.error.fields.meetingPoint).toBeTruthy();
 
+    // The meeting belongs to the night: 06:00 on its date to 12:00 the next day, site time.
+    const otherDay = await agent.post(`/api/sightlines/${sightlineId}/outings`).send({ ...base, meetingLocal: '2027-03-30T21:00' });
+    expect(otherDay.status).toBe(400);
+    expect(otherDay.body.error.fields.meetingLocal).toMatch(/night of 2027-03-27/);
+
     const ok = await agent.post(`/api/sightlines/${sightlineId}/outings`).send({ ...base, meetingLocal: '2027-03-27T21:00' });
     expect(ok.status).toBe(201);
     const bad = await viewerAgent.put(`/api/outings/${ok.body.outing.id}/answer`).send({ answer: 'perhaps' });
