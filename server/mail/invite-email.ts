@@ -3,7 +3,7 @@
  * night look, one column that reads on a phone.
  */
 import type { CrewRole } from '../../shared/policy/sightline-policy';
-import { escapeHtml } from './escape-html';
+import { escapeHtml } from '../../shared/html';
 
 export interface InviteEmailInput {
   inviterName: string;

@@ -11,6 +11,7 @@ import { formatLocalTime } from '../../shared/sky/timezone';
 import { TIDE_CAUTION } from '../../shared/tide';
 import { OUTLOOK_CAUTION, outlookLabel, outlookSummary, type WatchOutlookDecision } from '../../shared/outlook';
 import type { SkyOutlook } from '../../shared/schemas/outlook';
+import { escapeHtml } from '../../shared/html';
 
 /** Said with every computed lineup. */
 export const LINEUP_CAUTION =
@@ -68,11 +69,6 @@ const COLOURS = {
   button: '#c4321f',
   buttonText: '#000000',
 };
-
-/** HTML text escaping for the few values we put in the template (names, notes); five characters suffice. */
-function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-}
 
 function localClock(at: Date, tz: string): string {
   // formatLocalTime gives 'yyyy-MM-dd HH:mm LABEL', rounded to the minute.

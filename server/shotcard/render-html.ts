@@ -5,14 +5,7 @@
  */
 import { timelineBarLayout } from '../../shared/shotplan/sketch';
 import { barHours, type CardSection, type ShotCardModel } from './card-model';
-
-/**
- * Text made safe inside HTML elements and quoted attributes. Five characters is all this template
- * needs (it never writes into scripts, styles or URLs), so no package is pulled in for it.
- */
-export function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-}
+import { escapeHtml } from '../../shared/html';
 
 const e = escapeHtml;
 

@@ -5,6 +5,7 @@
  * for the landmark.
  */
 import { divIcon, type DivIconOptions, type Icon } from 'leaflet';
+import { escapeHtml } from '../../../shared/html';
 
 /**
  * A divIcon typed as @vue-leaflet's `icon` prop wants it (L.Icon); Leaflet's markers take any
@@ -43,10 +44,6 @@ export const landmarkIcon: Icon = markerIcon({
   iconSize: [30, 30],
   iconAnchor: [15, 15],
 });
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
-}
 
 /** A candidate spot of "where to stand", labelled with the elevation angle it gives. */
 export function spotIcon(label: string, exact: boolean): Icon {
