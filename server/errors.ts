@@ -1,4 +1,5 @@
-import type { ErrorCode } from '../shared/errors';
+import type { z } from 'zod';
+import { fieldErrorsFromZod, type ErrorCode } from '../shared/errors';
 
 const statusByCode: Record<ErrorCode, number> = {
   validation: 400,
@@ -29,4 +30,13 @@ export class AppError extends Error {
   static notFound(what = 'Not found'): AppError {
     return new AppError('not_found', what);
   }
+}
+
+/** Parses `source` with the schema or throws a 400 with per-field messages (for routes and services). */
+export function parseOrThrow<S extends z.ZodType>(schema: S, source: unknown): z.infer<S> {
+  const result = schema.safeParse(source);
+  if (!result.success) {
+    throw new AppError('validation', 'Some fields need attention', fieldErrorsFromZod(result.error));
+  }
+  return result.data;
 }

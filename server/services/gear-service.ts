@@ -1,6 +1,4 @@
 import { fn, col, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
-import type { z } from 'zod';
-import { fieldErrorsFromZod } from '../../shared/errors';
 import {
   cameraBodySchema,
   lensSchema,
@@ -17,7 +15,7 @@ import type {
   LensInput,
   LensPatch,
 } from '../../shared/schemas/shot-plan';
-import { AppError } from '../errors';
+import { AppError, parseOrThrow } from '../errors';
 import { CameraBodyModel } from '../models/camera-body';
 import { GearSettingsModel } from '../models/gear-settings';
 import { LensModel } from '../models/lens';
@@ -46,12 +44,6 @@ function merge<T extends object>(stored: T, change: Record<string, unknown>, gro
     else if (v !== undefined) out[k] = v;
   }
   return out;
-}
-
-function checked<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
-  const result = schema.safeParse(value);
-  if (!result.success) throw new AppError('validation', 'Some fields need attention', fieldErrorsFromZod(result.error));
-  return result.data;
 }
 
 function nameTaken(kind: 'camera body' | 'lens', name: string): AppError {
@@ -111,7 +103,7 @@ export class GearService {
 
   /** Adds a body (409 for a name the user already has, or a full list). */
   async createBody(user: UserModel, input: CameraBodyInput): Promise<CameraBodyModel> {
-    const body = checked(cameraBodySchema, input);
+    const body = parseOrThrow(cameraBodySchema, input);
     return this.unique('camera body', body.name, () => this.sequelize.transaction(async (transaction) => {
       await this.lockOwner(user, transaction);
       const count = await CameraBodyModel.count({ where: { ownerId: user.id }, transaction });
@@ -124,7 +116,7 @@ export class GearService {
   async updateBody(user: UserModel, id: string, change: CameraBodyPatch): Promise<CameraBodyModel> {
     return this.unique('camera body', change.name ?? '', () => this.sequelize.transaction(async (transaction) => {
       const row = await this.body(user, id, transaction);
-      const merged = checked(cameraBodySchema, merge(row.toBody(), change, [PIXEL_FIELDS]));
+      const merged = parseOrThrow(cameraBodySchema, merge(row.toBody(), change, [PIXEL_FIELDS]));
       await row.update(bodyColumns(merged), { transaction });
       return row;
     }));
@@ -137,7 +129,7 @@ export class GearService {
 
   /** Adds a lens (409 for a name the user already has, or a full list). */
   async createLens(user: UserModel, input: LensInput): Promise<LensModel> {
-    const lens = checked(lensSchema, input);
+    const lens = parseOrThrow(lensSchema, input);
     return this.unique('lens', lens.name, () => this.sequelize.transaction(async (transaction) => {
       await this.lockOwner(user, transaction);
       const count = await LensModel.count({ where: { ownerId: user.id }, transaction });
@@ -150,7 +142,7 @@ export class GearService {
   async updateLens(user: UserModel, id: string, change: LensPatch): Promise<LensModel> {
     return this.unique('lens', change.name ?? '', () => this.sequelize.transaction(async (transaction) => {
       const row = await this.lens(user, id, transaction);
-      const merged = checked(lensSchema, merge(row.toLens(), change, [], [[PRIME_FIELDS, ZOOM_FIELDS]]));
+      const merged = parseOrThrow(lensSchema, merge(row.toLens(), change, [], [[PRIME_FIELDS, ZOOM_FIELDS]]));
       await row.update(lensColumns(merged), { transaction });
       return row;
     }));

@@ -19,9 +19,10 @@ const INLINE_SEARCH_MAX_DAYS = 400;
 /** Serialized search answers kept in memory for repeated identical searches. */
 const RESULT_CACHE_ENTRIES = 300;
 
-interface ResolvedTarget { id?: string; name: string; raHours: number; decDeg: number }
+export interface ResolvedTarget { id?: string; name: string; raHours: number; decDeg: number }
 
-function resolveTarget(ref: TargetRef): ResolvedTarget {
+/** A catalogue target by id (400 on an unknown id) or a custom J2000 position, with its name. */
+export function resolveTarget(ref: TargetRef): ResolvedTarget {
   if ('id' in ref) {
     const t = findTarget(ref.id);
     if (!t) throw new AppError('validation', 'Unknown target', { 'target.id': 'Unknown target id' });

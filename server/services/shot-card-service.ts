@@ -1,17 +1,15 @@
 import { shotGearSchema } from '../../shared/schemas/gear';
-import type { TargetRef } from '../../shared/schemas/lineup';
 import type { ShotCardFormat, ShotPlan, ShotPlanRequest } from '../../shared/schemas/shot-plan';
-import { fieldErrorsFromZod } from '../../shared/errors';
 import { buildShotPlan, ShotPlanInputError } from '../../shared/shotplan/plan';
-import { findTarget } from '../../shared/sky/catalogue';
 import { lineupTideStatus } from '../../shared/tide';
-import { AppError } from '../errors';
+import { AppError, parseOrThrow } from '../errors';
 import { FieldNoteModel } from '../models/field-note';
 import type { UserModel } from '../models/user';
 import { shotCardModel } from '../shotcard/card-model';
 import { renderShotCardHtml } from '../shotcard/render-html';
 import { renderShotCardPdf } from '../shotcard/render-pdf';
 import type { GearService } from './gear-service';
+import { resolveTarget } from './lineup-service';
 import type { SightlineService } from './sightline-service';
 import type { TideService } from './tide-service';
 
@@ -25,15 +23,6 @@ export interface ShotCardFile {
   contentType: string;
   filename: string;
   body: string | Buffer;
-}
-
-function resolveTarget(ref: TargetRef): { id?: string; name: string; raHours: number; decDeg: number } {
-  if ('id' in ref) {
-    const t = findTarget(ref.id);
-    if (!t) throw new AppError('validation', 'Unknown target', { 'target.id': 'Unknown target id' });
-    return { id: t.id, name: t.name, raHours: t.raHours, decDeg: t.decDeg };
-  }
-  return { name: ref.name, raHours: ref.raHours, decDeg: ref.decDeg };
 }
 
 /** A file name fit for a download: letters, digits and dashes. */
@@ -63,14 +52,13 @@ export class ShotCardService {
       this.gear.lens(user, request.lensId),
       this.gear.settings(user),
     ]);
-    const combination = shotGearSchema.safeParse({
+    parseOrThrow(shotGearSchema, {
       body: body.toBody(),
       lens: lens.toLens(),
       focalLengthMm: request.focalLengthMm,
       fNumber: request.fNumber,
       tracked: request.tracked,
     });
-    if (!combination.success) throw new AppError('validation', 'Some fields need attention', fieldErrorsFromZod(combination.error));
 
     const { start, peak, end } = request.lineup;
     let tide: { status: 'reachable' | 'cut-off' | 'unknown'; cutOffAt: Date | null } | null = null;
