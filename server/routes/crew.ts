@@ -5,8 +5,9 @@ import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { CrewService } from '../services/crew-service';
 import type { InviteService } from '../services/invite-service';
+import { idSchema } from '../../shared/schemas/ids';
 
-const uuid = z.uuid({ error: 'Not a valid id' });
+const uuid = idSchema;
 const sightlineParams = z.object({ id: uuid });
 const memberParams = z.object({ id: uuid, userId: uuid });
 const inviteParams = z.object({ id: uuid, inviteId: uuid });

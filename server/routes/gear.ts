@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import {
   cameraBodyInputSchema,
   cameraBodyPatchSchema,
@@ -10,8 +9,9 @@ import {
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { GearService } from '../services/gear-service';
+import { idParamsSchema } from '../../shared/schemas/ids';
 
-const idParams = z.object({ id: z.uuid({ error: 'Not a valid id' }) });
+const idParams = idParamsSchema;
 
 /** Mounted at /api/gear: the signed-in user's camera bodies, lenses and gear settings. */
 export function gearRouter({ gear }: { gear: GearService }): Router {

@@ -1,11 +1,11 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { outboxListQuerySchema } from '../../shared/schemas/outbox';
 import { requireRole } from '../middleware/auth';
 import { parseOrThrow } from '../middleware/validate';
 import type { OutboxService } from '../services/outbox-service';
+import { idParamsSchema } from '../../shared/schemas/ids';
 
-const messageParams = z.object({ id: z.uuid({ error: 'Not a valid id' }) });
+const messageParams = idParamsSchema;
 
 /** Mounted at /api/outbox: what the local SMTP fake received. Admins only. */
 export function outboxRouter({ outbox }: { outbox: OutboxService }): Router {

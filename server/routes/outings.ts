@@ -1,11 +1,11 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { outingAnswerInputSchema, outingInputSchema, outingUpdateSchema } from '../../shared/schemas/outing';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { OutingService } from '../services/outing-service';
+import { idParamsSchema } from '../../shared/schemas/ids';
 
-const params = z.object({ id: z.uuid({ error: 'Not a valid id' }) });
+const params = idParamsSchema;
 
 /** Mounted at /api/sightlines/:id/outings: list and plan. */
 export function sightlineOutingsRouter({ outings }: { outings: OutingService }): Router {

@@ -1,12 +1,12 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { OUTLOOK_CAUTION } from '../../shared/outlook';
 import { outlookRequestSchema, sightlineOutlookQuerySchema, type OutlookRequest, type OutlookResponse } from '../../shared/schemas/outlook';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { ForecastService } from '../forecast/forecast-service';
+import { idParamsSchema } from '../../shared/schemas/ids';
 
-const sightlineParams = z.object({ id: z.uuid({ error: 'Not a valid id' }) });
+const sightlineParams = idParamsSchema;
 
 /**
  * Mounted at /api/outlook. POST with `{ sightlineId | vantage, windows }`: the sky outlook of each

@@ -7,8 +7,9 @@ import { AppError } from '../errors';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { PhotoService } from '../services/photo-service';
+import { idSchema } from '../../shared/schemas/ids';
 
-const uuid = z.uuid({ error: 'Not a valid id' });
+const uuid = idSchema;
 const sightlineParams = z.object({ id: uuid });
 const photoParams = z.object({ id: uuid });
 const fileParams = z.object({ id: uuid, variant: z.enum(photoVariants, { error: 'Ask for thumb, display or original' }) });

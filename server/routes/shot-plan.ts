@@ -1,11 +1,11 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { shotCardQuerySchema, shotPlanRequestSchema } from '../../shared/schemas/shot-plan';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { ShotCardService } from '../services/shot-card-service';
+import { idParamsSchema } from '../../shared/schemas/ids';
 
-const sightlineParams = z.object({ id: z.uuid({ error: 'Not a valid id' }) });
+const sightlineParams = idParamsSchema;
 
 /**
  * Mounted at /api/sightlines/:id: POST shot-plan (the plan as JSON) and POST shot-card

@@ -11,8 +11,9 @@ import type { TideService } from '../services/tide-service';
 import type { LineupService } from '../services/lineup-service';
 import type { PhotoService } from '../services/photo-service';
 import { catalogueTargetRefSchema } from '../../shared/schemas/lineup';
+import { idSchema } from '../../shared/schemas/ids';
 
-const uuid = z.uuid({ error: 'Not a valid id' });
+const uuid = idSchema;
 const sightlineParams = z.object({ id: uuid });
 const noteParams = z.object({ id: uuid, noteId: uuid });
 const listQuery = z.object({ all: z.enum(['true', 'false']).optional() });

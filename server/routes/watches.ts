@@ -1,12 +1,12 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { unsubscribeRequestSchema, watchInputSchema, watchListQuerySchema, watchUpdateSchema } from '../../shared/schemas/watch';
 import { requireAuth } from '../middleware/auth';
 import { parseOrThrow, validateBody } from '../middleware/validate';
 import type { UnsubscribeService } from '../services/unsubscribe-service';
 import type { WatchService } from '../services/watch-service';
+import { idParamsSchema } from '../../shared/schemas/ids';
 
-const watchParams = z.object({ id: z.uuid({ error: 'Not a valid id' }) });
+const watchParams = idParamsSchema;
 
 /** Mounted at /api/watches: the signed-in user's watches. */
 export function watchesRouter({ watches }: { watches: WatchService }): Router {
