@@ -12,6 +12,7 @@ import { TIDE_CAUTION } from '../../shared/tide';
 import { OUTLOOK_CAUTION, outlookLabel, outlookSummary, type WatchOutlookDecision } from '../../shared/outlook';
 import type { SkyOutlook } from '../../shared/schemas/outlook';
 import { escapeHtml } from '../../shared/html';
+import { nightOf } from '../services/watch-timing';
 
 /** Said with every computed lineup. */
 export const LINEUP_CAUTION =
@@ -134,8 +135,8 @@ function outlookParts(input: WatchEmailOutlook | undefined, tz: string): { rows:
 export function renderWatchEmail(input: WatchEmailInput): RenderedWatchEmail {
   const { lineup: l, timezone: tz } = input;
   const start = new Date(l.start);
-  const night = DateTime.fromMillis(start.getTime() - 12 * 3_600_000, { zone: tz });
-  const nightIso = night.toISODate()!;
+  const nightIso = nightOf(start, tz);
+  const night = DateTime.fromISO(nightIso, { zone: tz });
   const nightName = night.setLocale('en-GB').toFormat('cccc d LLLL yyyy');
   const when = whenText(nightIso, input.now, tz);
   const startText = formatLocalTime(start, tz);

@@ -1,6 +1,7 @@
 import ical from 'ical-generator';
 import type { LineupSearchResponse } from '../../shared/schemas/lineup';
-import { formatLocalTime, localDateOf } from '../../shared/sky/timezone';
+import { formatLocalTime } from '../../shared/sky/timezone';
+import { nightOf } from './watch-timing';
 
 const CAUTION = 'A computed lineup is a plan, not a promise: check the weather, the official tide table and local knowledge before you go.';
 
@@ -41,7 +42,7 @@ export function lineupsToCsv(result: LineupSearchResponse): string {
     'peak_azimuth_deg', 'peak_altitude_deg', 'moon_altitude_deg', 'moon_illumination', 'score', 'tide_status', 'target'];
   const rows = result.lineups.map((l) => [
     // The night is named by the local date of its evening: a lineup after midnight belongs to the day before.
-    localDateOf(new Date(Date.parse(l.start) - 12 * 3600_000), tz),
+    nightOf(new Date(l.start), tz),
     formatLocalTime(new Date(l.start), tz), formatLocalTime(new Date(l.end), tz), formatLocalTime(new Date(l.peak), tz), tz,
     l.start, l.end, l.peak, l.durationMin.toFixed(1), l.peakAzimuthDeg.toFixed(2), l.peakAltitudeDeg.toFixed(2),
     l.moonAltitudeDeg.toFixed(2), l.moonIllumination.toFixed(3), l.score.toFixed(3), l.tideStatus ?? '', result.target.name,
