@@ -24,9 +24,9 @@ import {
 import { nightReport } from '../sky/night';
 import { targetHorizontal } from '../sky/positions';
 import { formatLocalTime } from '../sky/timezone';
-import { MS_PER_MINUTE } from '../units';
+import { MS_PER_MINUTE, normalizeDegrees360 } from '../units';
 import { shotPlanCautions } from './cautions';
-import { MAX_NPF_DECLINATION_DEG, suggestedSubExposureRange, trackedStackPlan, untrackedLimits } from './exposure';
+import { framesForIntegration, MAX_NPF_DECLINATION_DEG, suggestedSubExposureRange, trackedStackPlan, untrackedLimits } from './exposure';
 import { fitInFrame, heldFieldOfView, longestFittingFocalLength, type Orientation } from './framing';
 import { deriveBody, lensFocalRange } from './gear';
 import { DEFAULT_PANORAMA_OVERLAP, panoramaGrid, skySpanOf, type PanoramaGrid } from './panorama';
@@ -197,7 +197,7 @@ export function buildShotPlan(inputs: ShotPlanInputs): ShotPlan {
   ];
   if (half > 0.05) {
     for (const side of [-half, half]) {
-      const a = ((az + side) % 360 + 360) % 360;
+      const a = normalizeDegrees360(az + side);
       landmarkPoints.push({ azimuthDeg: a, altitudeDeg: geometry.topElevationDeg }, { azimuthDeg: a, altitudeDeg: geometry.baseElevationDeg });
     }
   }
@@ -271,7 +271,7 @@ export function buildShotPlan(inputs: ShotPlanInputs): ShotPlan {
   // Blocks and the night.
   const subExposureS = i.sky.subExposureS ?? (i.tracked ? trackedSubRange.minS : untrackedFrameS);
   const totalIntegrationS = Math.max(i.sky.totalIntegrationS ?? (i.tracked ? DEFAULT_TRACKED_INTEGRATION_S : DEFAULT_UNTRACKED_INTEGRATION_S), subExposureS);
-  const skyFrames = Math.max(1, Math.ceil(Number((totalIntegrationS / subExposureS).toFixed(9))));
+  const skyFrames = field('sky.totalIntegrationS', () => framesForIntegration(totalIntegrationS, subExposureS));
   const skyBlock = field('sky.totalIntegrationS', () => framesBlock('sky-stack', i.tracked ? 'Sky stack (tracked)' : 'Sky stack (untracked)', skyFrames, subExposureS, i.sky.frameGapS));
   const rows = grid;
   const rowBlocks = panorama && rows ? field('panorama', () => panoramaRowBlocks(rows, panorama.frameExposureS, panorama.frameGapS)) : [];
