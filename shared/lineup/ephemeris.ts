@@ -198,11 +198,6 @@ export function sunGeocentricAndSidereal(utDays: number, out: Float64Array): num
   return TWO_PI * earthRotationTurns(utDays) + evalChebyshev(seg, 3 * SUN_COEFFICIENTS, SUN_COEFFICIENTS, x) * RAD_PER_DEG;
 }
 
-/** Number of fitted segments held in the cache (Sun, Moon), for benchmarks. */
-export function ephemerisCacheSize(): { sun: number; moon: number } {
-  return { sun: sunTable.size, moon: moonTable.size };
-}
-
 /** Empties the segment cache (benchmarks use it to time a cold start). */
 export function clearEphemerisCache(): void {
   sunTable.clear();

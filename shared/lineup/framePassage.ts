@@ -24,7 +24,7 @@
  */
 import type { Frame } from '../schemas/geometry';
 import { directionAt, type PlaceNodes } from './apparentPlace';
-import { earthRotationUnwrappedRad, siderealOffsetDeg } from './ephemeris';
+import { apparentSiderealUnwrappedRad } from './ephemeris';
 import { appendMerging, type FlatIntervals } from './intervals';
 import { geometricAltitudeDeg } from './refraction';
 import { assertFiniteInRange, assertPositiveUpTo } from '../guards';
@@ -307,7 +307,7 @@ export class TargetTrack {
 
   /** Unwrapped local apparent sidereal angle at t, rad. */
   localSidereal(t: number): number {
-    return earthRotationUnwrappedRad(t) + siderealOffsetDeg(t) * RAD_PER_DEG + this.lonRad;
+    return apparentSiderealUnwrappedRad(t) + this.lonRad;
   }
 
   /** Hour angle at t, rad, on an arbitrary branch (updates sinDec/cosDec/ra). */

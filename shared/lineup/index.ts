@@ -7,5 +7,4 @@ export { computeDarkWindows, type DarkWindow, type DarkWindowSet } from './darkW
 export { computeFramePassages, type TimeInterval } from './passages';
 export { lineupScore, centringFromOffsets, type ScoreInputs } from './score';
 export { type LineupConditions, type MoonCondition, DEFAULT_SUN_MAX_ALT_DEG, DEFAULT_MIN_DURATION_MIN } from './conditions';
-export { createSkyAtSite, type SkyAtSite } from './skyAtSite';
 export { MAX_RANGE_DAYS } from './time';
