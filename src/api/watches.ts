@@ -21,11 +21,6 @@ export async function listWatches(options: { sightlineId?: string } = {}): Promi
   return (await request('GET', `/watches${suffix}`, { schema: watchListResponseSchema })).watches;
 }
 
-/** GET /api/watches/:id. */
-export async function getWatch(id: string): Promise<Watch> {
-  return (await request('GET', watchPath(id), { schema: watchResponseSchema })).watch;
-}
-
 /** POST /api/watches. */
 export async function createWatch(input: WatchInputBody): Promise<Watch> {
   return (await request('POST', '/watches', { body: input, schema: watchResponseSchema })).watch;

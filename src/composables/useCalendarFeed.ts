@@ -2,11 +2,9 @@ import { computed, onMounted, ref } from 'vue';
 import { useDialog, useMessage } from 'naive-ui';
 import { formatLocalTime } from '../../shared/sky';
 import { useWatchesStore } from '@/stores/watches';
+import { browserZone } from './useLineupTime';
 
 /** The browser's own zone, for times that belong to no site. */
-function browserZone(): string {
-  return Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
-}
 
 /**
  * The secret calendar feed of the signed-in user: its address to copy into a calendar app, and

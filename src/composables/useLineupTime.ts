@@ -39,3 +39,8 @@ export function durationText(minutes: number): string {
   if (m < 60) return `${m} min`;
   return `${Math.floor(m / 60)} h ${String(m % 60).padStart(2, '0')} min`;
 }
+
+/** The browser's own IANA zone, for times that belong to no site (e-mails received, feed made). */
+export function browserZone(): string {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+}

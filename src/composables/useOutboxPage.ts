@@ -3,11 +3,9 @@ import type { DataTableColumns, PaginationProps } from 'naive-ui';
 import { OUTBOX_MAX_PAGE_SIZE, type OutboxSummary } from '../../shared/schemas/outbox';
 import { formatLocalTime } from '../../shared/sky';
 import { useOutboxStore } from '@/stores/outbox';
+import { browserZone } from './useLineupTime';
 
 /** The browser's own zone: mail belongs to no site. */
-function browserZone(): string {
-  return Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
-}
 
 /** A size in bytes as '812 B', '14.2 kB', '1.3 MB' (SI units, 1 kB = 1000 B). */
 export function sizeText(bytes: number): string {

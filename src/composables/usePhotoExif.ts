@@ -3,7 +3,6 @@ import { useDialog, useMessage } from 'naive-ui';
 import type { Photo } from '../../shared/schemas/photo';
 import { distanceM } from '../../shared/geo';
 import { useSightlineDetailStore } from '@/stores/sightlineDetail';
-import { useLineupsStore } from '@/stores/lineups';
 import { usePhotosStore } from '@/stores/photos';
 import { formatDistance, useUnits } from './useUnits';
 
@@ -24,7 +23,6 @@ export function takenAtText(takenAt: string | undefined): string {
  */
 export function usePhotoExif(photo: Ref<Photo | null>) {
   const detail = useSightlineDetailStore();
-  const lineups = useLineupsStore();
   const photos = usePhotosStore();
   const { units } = useUnits();
   const dialog = useDialog();
@@ -64,7 +62,7 @@ export function usePhotoExif(photo: Ref<Photo | null>) {
   const distanceText = computed(() => (distanceFromVantageM.value === null ? '' : formatDistance(distanceFromVantageM.value, units.value)));
   const farFromVantage = computed(() => (distanceFromVantageM.value ?? 0) > PHOTO_VANTAGE_WARN_M);
 
-  /** Asks, then moves the vantage to the photo's GPS position and searches again. */
+  /** Asks, then moves the vantage to the photo's GPS position (the page then searches again). */
   function setVantageHere(): void {
     const g = gps.value;
     if (!g) return;
@@ -78,7 +76,6 @@ export function usePhotoExif(photo: Ref<Photo | null>) {
         try {
           await detail.moveVantage(g.lat, g.lon);
           message.success('The vantage moved to the photo position');
-          void lineups.refreshAll();
         } catch (error) {
           message.error((error as Error).message);
         } finally {

@@ -60,8 +60,8 @@ function createPage() {
     if (typeof night === 'string' && NIGHT_RE.test(night)) lineups.selectedNight = night;
   }, { immediate: true });
 
-  // Lineup tide status depends on the tide rule and tide times: search again when they change.
-  watch(() => detail.tideRevision, () => { void lineups.refreshAll(); });
+  // Lineups depend on the vantage, and their tide status on the tide rule and tide times: search again when they change.
+  watch(() => detail.planRevision, () => { void lineups.refreshAll(); });
 
   const zoneText = computed(() => (detail.sightline ? zoneHeading(detail.sightline.timezone) : ''));
 

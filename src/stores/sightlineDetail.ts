@@ -13,7 +13,7 @@ export type TidePasteWarning = { line: number; text: string; message: string };
 
 /**
  * The sightline a sightline page shows: the sightline with its geometry, its tide rule and its
- * stored tide times. `tideRevision` goes up whenever the tide rule or tide times change, so lineup
+ * stored tide times. `planRevision` goes up whenever the vantage, the tide rule or tide times change, so lineup
  * results (whose tide status depends on them) know to refresh.
  */
 export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
@@ -21,7 +21,7 @@ export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
   const loading = ref(false);
   const loadError = ref('');
   const tideEvents = ref<TideEvent[]>([]);
-  const tideRevision = ref(0);
+  const planRevision = ref(0);
   let loadToken = 0;
 
   const id = computed(() => sightline.value?.id ?? null);
@@ -88,26 +88,27 @@ export const useSightlineDetailStore = defineStore('sightlineDetail', () => {
     const current = sightline.value;
     if (!current) throw new Error('No sightline is open');
     sightline.value = await updateSightline(current.id, { vantage: { ...current.vantage, lat, lon } });
+    planRevision.value += 1;
   }
 
   async function saveTideRule(rule: TideRule | null): Promise<void> {
     sightline.value = await tidesApi.putTideRule(requireId(), rule);
-    tideRevision.value += 1;
+    planRevision.value += 1;
   }
 
   /** Saves pasted tide times (all or nothing); returns the server's warnings. */
   async function pasteTideTimes(text: string): Promise<TidePasteWarning[]> {
     const result = await tidesApi.pasteTideTimes(requireId(), text);
     tideEvents.value = result.events;
-    tideRevision.value += 1;
+    planRevision.value += 1;
     return result.warnings;
   }
 
   async function clearTideTimes(): Promise<void> {
     await tidesApi.clearTideTimes(requireId());
     tideEvents.value = [];
-    tideRevision.value += 1;
+    planRevision.value += 1;
   }
 
-  return { sightline, loading, loadError, tideEvents, tideRevision, id, canEdit, timeZone, site, frame, geometry, open, moveVantage, saveTideRule, pasteTideTimes, clearTideTimes };
+  return { sightline, loading, loadError, tideEvents, planRevision, id, canEdit, timeZone, site, frame, geometry, open, moveVantage, saveTideRule, pasteTideTimes, clearTideTimes };
 });
